@@ -1,0 +1,30 @@
+#!/usr/bin/env bash
+# npm start: the app with demo data on 127.0.0.1. Ctrl-C stops everything it started; the
+# database in .data/pg keeps its data for the next start.
+set -euo pipefail
+source "$(dirname "$0")/services.sh"
+
+export SHEATHWISE_PORT="${SHEATHWISE_PORT:-4321}"
+PG_PORT="${SHEATHWISE_PG_PORT:-55432}"
+SMTP_PORT_DEV="${SHEATHWISE_SMTP_PORT:-1025}"
+MAIL_WEB_PORT="${SHEATHWISE_MAIL_WEB_PORT:-1080}"
+
+trap 'stop_started; exit 0' INT TERM
+trap 'stop_started' EXIT
+
+ensure_node_modules
+start_postgres "$ROOT/.data/pg" "$PG_PORT" sheathwise
+migrate_and_seed --seed
+start_maildev "$SMTP_PORT_DEV" "$MAIL_WEB_PORT"
+
+# The session secret is made once and kept beside the data, so sign-ins survive restarts.
+SECRET_FILE="$ROOT/.data/auth-secret"
+[ -s "$SECRET_FILE" ] || node -e "console.log(require('crypto').randomBytes(32).toString('hex'))" >"$SECRET_FILE"
+export AUTH_SECRET="$(cat "$SECRET_FILE")"
+
+build_app
+start_server
+log "Sheathwise is running:  http://127.0.0.1:$SHEATHWISE_PORT   (demo accounts: see README.md)"
+log "Mail inbox:             http://127.0.0.1:$MAIL_WEB_PORT"
+log "Press Ctrl-C to stop."
+wait "$SERVER_PID"

@@ -1,0 +1,67 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { signIn } from 'auth-astro/client';
+import { signInSchema, type SignInInput } from '../../lib/schemas/sign-in.schema';
+
+const MESSAGES: Record<string, string> = {
+  locked: 'Too many wrong passwords: this account is locked for a few minutes. Try again later or ask an administrator.',
+  credentials: 'That e-mail and password do not match an account. Check both and try again.',
+};
+
+export default function SignInForm({ next }: { next: string }) {
+  const [failure, setFailure] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    formState: { errors, isSubmitting },
+  } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFailure(null);
+    const res = await signIn('credentials', { ...values, redirect: false, callbackUrl: next });
+    if (!res) return; // signed in: the browser is already on its way
+    const data = (await res.json()) as { url: string };
+    const code = new URL(data.url).searchParams.get('code');
+    setFailure(MESSAGES[code ?? 'credentials'] ?? MESSAGES.credentials);
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in">
+      <label className="block">
+        <span className="text-sm font-semibold">E-mail</span>
+        <input
+          type="email"
+          autoComplete="username"
+          {...register('email')}
+          aria-invalid={!!errors.email}
+          className="mt-1 w-full rounded border border-rule bg-panel px-3 py-2"
+        />
+        {errors.email && <span className="text-sm text-fail">{errors.email.message}</span>}
+      </label>
+      <label className="block">
+        <span className="text-sm font-semibold">Password</span>
+        <input
+          type="password"
+          autoComplete="current-password"
+          {...register('password')}
+          aria-invalid={!!errors.password}
+          className="mt-1 w-full rounded border border-rule bg-panel px-3 py-2"
+        />
+        {errors.password && <span className="text-sm text-fail">{errors.password.message}</span>}
+      </label>
+      {failure && (
+        <p role="alert" className="rounded border border-fail bg-fail/10 px-3 py-2 text-sm text-fail">
+          {failure}
+        </p>
+      )}
+      <button
+        type="submit"
+        disabled={isSubmitting}
+        className="w-full rounded bg-copper px-4 py-2 font-semibold text-paper hover:bg-copper-dark disabled:opacity-60"
+      >
+        {isSubmitting ? 'Signing in…' : 'Sign in'}
+      </button>
+    </form>
+  );
+}

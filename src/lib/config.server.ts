@@ -1,0 +1,29 @@
+import { z } from 'zod';
+
+// Every setting the server reads, declared once. .env.example lists the same names.
+const configSchema = z.object({
+  DATABASE_URL: z.string().url(),
+  AUTH_SECRET: z.string().min(16),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().positive().default(1025),
+  MAIL_FROM: z.string().default('Sheathwise <no-reply@sheathwise.invalid>'),
+  SIGN_IN_MAX_FAILURES: z.coerce.number().int().positive().default(5),
+  SIGN_IN_LOCK_SECONDS: z.coerce.number().int().positive().default(300),
+});
+
+export type ServerConfig = z.output<typeof configSchema>;
+
+let cached: ServerConfig | undefined;
+
+/** The validated server configuration; throws naming each missing or bad variable. */
+export function serverConfig(): ServerConfig {
+  if (!cached) {
+    const parsed = configSchema.safeParse(process.env);
+    if (!parsed.success) {
+      const fields = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`);
+      throw new Error(`Server configuration is incomplete. ${fields.join('; ')}`);
+    }
+    cached = parsed.data;
+  }
+  return cached;
+}

@@ -1,0 +1,44 @@
+import { eq, sql } from 'drizzle-orm';
+import type { Database } from './client';
+import { memberships, users, type User } from './schema';
+import type { SessionUser } from '../auth/roles';
+import type { ProjectRole } from './schema/projects';
+
+export async function findUserByEmail(db: Database, email: string): Promise<User | undefined> {
+  const [row] = await db.select().from(users).where(eq(users.email, email.trim().toLowerCase()));
+  return row;
+}
+
+/** The user with their roles per project, or null when the id no longer exists. */
+export async function loadSessionUser(db: Database, id: string): Promise<SessionUser | null> {
+  const [user] = await db.select().from(users).where(eq(users.id, id));
+  if (!user) return null;
+  const rows = await db.select().from(memberships).where(eq(memberships.userId, id));
+  const projectRoles: Record<string, ProjectRole[]> = {};
+  for (const m of rows) (projectRoles[m.projectId] ??= []).push(m.role);
+  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, projectRoles };
+}
+
+export async function recordFailedSignIn(db: Database, id: string, maxFailures: number, lockSeconds: number) {
+  // One statement, so concurrent failures cannot undercount.
+  await db
+    .update(users)
+    .set({
+      failedSignIns: sql`${users.failedSignIns} + 1`,
+      lockedUntil: sql`case when ${users.failedSignIns} + 1 >= ${maxFailures}
+        then now() + make_interval(secs => ${lockSeconds}) else ${users.lockedUntil} end`,
+    })
+    .where(eq(users.id, id));
+}
+
+export async function clearFailedSignIns(db: Database, id: string) {
+  await db.update(users).set({ failedSignIns: 0, lockedUntil: null }).where(eq(users.id, id));
+}
+
+/** Users for the admin screen, without password data. */
+export async function listUsers(db: Database) {
+  return db
+    .select({ id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin, createdAt: users.createdAt })
+    .from(users)
+    .orderBy(users.name);
+}

@@ -1,0 +1,42 @@
+import type { APIContext, APIRoute } from 'astro';
+import type { z } from 'zod';
+import { AppError } from '../errors';
+
+/** Wraps an endpoint so that catalogue errors become JSON with their status, and nothing else leaks. */
+export function endpoint(handler: (ctx: APIContext) => Promise<Response> | Response): APIRoute {
+  return async (ctx) => {
+    try {
+      return await handler(ctx);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}
+
+export function errorResponse(err: unknown): Response {
+  if (err instanceof AppError) return Response.json(err.toJSON(), { status: err.status });
+  console.error(err);
+  return Response.json(
+    { error: 'Internal', title: 'Unexpected error', message: 'Something failed on the server; it has been logged.' },
+    { status: 500 },
+  );
+}
+
+/** Parses a JSON body with a zod schema; every failing field is named in the error. */
+export async function parseBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
+  let raw: unknown;
+  try {
+    raw = await request.json();
+  } catch {
+    throw new AppError('InvalidInput', 'The request body is not valid JSON.');
+  }
+  const parsed = schema.safeParse(raw);
+  if (!parsed.success) {
+    throw new AppError(
+      'InvalidInput',
+      undefined,
+      parsed.error.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message })),
+    );
+  }
+  return parsed.data;
+}

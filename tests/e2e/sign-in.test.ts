@@ -1,0 +1,56 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import path from 'node:path';
+import type { BrowserContext, Page } from 'playwright-core';
+import { launchBrowser } from '../helpers/browser';
+import { DEMO_PASSWORD, testEnv } from '../helpers/env';
+
+const { appUrl, artifacts } = testEnv();
+
+describe('sign in and out in Chromium', () => {
+  let context: BrowserContext;
+  let close: () => Promise<void>;
+  let page: Page;
+
+  beforeAll(async () => {
+    ({ context, close } = await launchBrowser());
+    page = await context.newPage();
+  });
+  afterAll(async () => close?.());
+
+  it('shows field errors for an empty form and a message for a wrong password', async () => {
+    await page.goto(`${appUrl}/`);
+    await page.waitForURL(/\/signin/);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await expect(page.getByText('Enter your e-mail address.').isVisible()).resolves.toBe(true);
+    await page.getByLabel('E-mail').fill('designer@sheathwise.example');
+    await page.getByLabel('Password').fill('wrong-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('alert').waitFor();
+    expect(await page.getByRole('alert').textContent()).toContain('do not match an account');
+  });
+
+  it('signs in through the form and shows the home page in Noto Sans', async () => {
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL(`${appUrl}/`);
+    await expect(page.getByTestId('whoami').textContent()).resolves.toContain('Ada Okonkwo');
+    await expect(page.getByTestId('empty-queue').isVisible()).resolves.toBe(true);
+    await page.evaluate(() => document.fonts.ready);
+    // check() alone is true when no face is declared at all, so look for a loaded face.
+    const fontLoaded = await page.evaluate(() =>
+      [...document.fonts].some((f) => f.family.replace(/"/g, '') === 'Noto Sans' && f.status === 'loaded'),
+    );
+    const family = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
+    expect(family).toContain('Noto Sans');
+    expect(fontLoaded).toBe(true);
+    await page.screenshot({ path: path.join(artifacts, 'home.png') });
+  });
+
+  it('signs out and lands on the sign-in page, with the home page closed again', async () => {
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/signin/);
+    await page.goto(`${appUrl}/`);
+    await page.waitForURL(/\/signin/);
+    expect(new URL(page.url()).pathname).toBe('/signin');
+  });
+});

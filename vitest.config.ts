@@ -1,0 +1,12 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['tests/**/*.test.ts'],
+    testTimeout: 30_000,
+    hookTimeout: 60_000,
+    // Browser and HTTP tests share one server and database; files run one after another
+    // so a lockout test cannot disturb a sign-in test.
+    fileParallelism: false,
+  },
+});
