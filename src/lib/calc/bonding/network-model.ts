@@ -1,0 +1,148 @@
+import type { BondingStudy } from '../../schemas/bonding-study.schema';
+import { type Complex, div } from '../complex';
+import { EARTH, NetworkBuilder } from '../network';
+import { crossSectionKey, segmentCoupling } from './impedances';
+import { type RouteJoint, type RouteTopology, buildRouteTopology } from './route-topology';
+import type { CrossSectionCoupling } from '../network';
+
+export const SVL_TAG = 'svl-conducting';
+const PHASES = 'abc';
+
+export interface CableRef {
+  circuitId: string;
+  phase: 0 | 1 | 2;
+  /** e.g. "C1-a": the sheath running along the cable of phase a of circuit C1. */
+  label: string;
+}
+
+/** Where each quantity of interest lives in the network. */
+export interface BondingNetworkModel {
+  topology: RouteTopology;
+  builder: NetworkBuilder;
+  cables: CableRef[];
+  eccIds: string[];
+  /** Per joint: the sheath end nodes on each side (by cable index), the ECC nodes, the earth bar. */
+  jointNodes: Array<{ left: number[]; right: number[]; ecc: Map<string, number>; earthBar?: number; earthOhm?: number }>;
+  /** Per segment: network segment index, and its conductor order (cables, then ECC ids). */
+  segments: Array<{ networkIndex: number; eccIds: string[] }>;
+  /** SVL elements added: study SVL index, joint, cable, the nodes across it. */
+  svls: Array<{ svlIndex: number; joint: number; cable: number; a: number; b: number }>;
+  /** Index of the earth-fault injection in the case source vector. */
+  faultSourceIndex: number;
+  routeStartBar: number;
+  routeEndBar: number;
+}
+
+/** Builds the coupled network of a checked bonding study. */
+export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
+  const topology = buildRouteTopology(study);
+  const builder = new NetworkBuilder();
+  const cables: CableRef[] = study.circuits.flatMap((c) =>
+    [0, 1, 2].map((p) => ({ circuitId: c.id, phase: p as 0 | 1 | 2, label: `${c.id}-${PHASES[p]}` })),
+  );
+  const last = topology.joints.length - 1;
+
+  const jointNodes: BondingNetworkModel['jointNodes'] = topology.joints.map((joint) => {
+    const tag = `joint ${joint.userJointIndex ?? `(internal, ${joint.chainageM.toFixed(1)} m)`}`;
+    const left = joint.hasLeft ? cables.map((c) => builder.addNode(joint.index, `sheath ${c.label} arriving at ${tag}`)) : [];
+    const right = joint.hasRight ? cables.map((c) => builder.addNode(joint.index, `sheath ${c.label} leaving ${tag}`)) : [];
+    const ecc = new Map<string, number>();
+    for (const [id, span] of topology.eccSpans) {
+      if (joint.index >= span.fromJoint && joint.index <= span.toJoint) ecc.set(id, builder.addNode(joint.index, `ECC ${id} at ${tag}`));
+    }
+    return { left, right, ecc };
+  });
+
+  const leadZ: Complex = { re: study.bondingLeadMilliohm.r / 1000, im: study.bondingLeadMilliohm.x / 1000 };
+  const leadIdeal = leadZ.re === 0 && leadZ.im === 0;
+
+  topology.joints.forEach((joint, j) => {
+    const nodes = jointNodes[j];
+    const needsBar =
+      j === 0 || j === last || joint.earthLeft || joint.earthRight ||
+      [...topology.eccSpans.values()].some((s) => s.fromJoint === j || s.toJoint === j);
+    if (needsBar) {
+      const ohm = earthResistance(study, joint, j === 0, j === last);
+      nodes.earthBar = builder.addNode(j, `earth at joint ${joint.userJointIndex ?? j}`);
+      nodes.earthOhm = ohm;
+      builder.addAdmittance(nodes.earthBar, EARTH, { re: 1 / ohm, im: 0 });
+    }
+    const bar = nodes.earthBar!;
+    if (joint.join === 'straight') {
+      nodes.left.forEach((n, c) => builder.connect(n, nodes.right[c]));
+      if (joint.earthLeft) nodes.left.forEach((n) => builder.connect(n, bar));
+    } else if (joint.join === 'cross') {
+      nodes.left.forEach((n, c) => {
+        const next = nodes.right[sameCircuitNextPhase(c)];
+        if (leadIdeal) builder.connect(n, next);
+        else builder.addAdmittance(n, next, div({ re: 1, im: 0 }, leadZ));
+      });
+    } else {
+      if (joint.earthLeft) nodes.left.forEach((n) => builder.connect(n, bar));
+      if (joint.earthRight) nodes.right.forEach((n) => builder.connect(n, bar));
+    }
+    for (const [id, span] of topology.eccSpans) {
+      if (span.fromJoint === j || span.toJoint === j) builder.connect(nodes.ecc.get(id)!, bar);
+    }
+  });
+
+  const couplings = new Map<string, CrossSectionCoupling>();
+  const segments = topology.segments.map((seg) => {
+    const key = crossSectionKey(seg);
+    if (!couplings.has(key)) couplings.set(key, segmentCoupling(study, seg));
+    const from = [...jointNodes[seg.index].right, ...seg.eccIds.map((id) => jointNodes[seg.index].ecc.get(id)!)];
+    const to = [...jointNodes[seg.index + 1].left, ...seg.eccIds.map((id) => jointNodes[seg.index + 1].ecc.get(id)!)];
+    return { networkIndex: builder.addSegment(from, to, seg.lengthM, couplings.get(key)!), eccIds: seg.eccIds };
+  });
+
+  const svls: BondingNetworkModel['svls'] = [];
+  study.svls.forEach((svl, svlIndex) => {
+    const j = topology.joints.findIndex((x) => x.userJointIndex === svl.jointIndex);
+    const joint = topology.joints[j];
+    const nodes = jointNodes[j];
+    const y = { re: 1 / svl.conductingResistanceOhm, im: 0 };
+    cables.forEach((_, c) => {
+      const pairs: Array<[number, number]> = [];
+      if (svl.connection === 'across-joint') pairs.push([nodes.left[c], nodes.right[c]]);
+      else if (joint.join === 'cross') pairs.push([nodes.left[c], EARTH]);
+      else {
+        if (joint.hasLeft && !joint.earthLeft) pairs.push([nodes.left[c], EARTH]);
+        if (joint.hasRight && !joint.earthRight) pairs.push([nodes.right[c], EARTH]);
+      }
+      for (const [a, b] of pairs) {
+        builder.addAdmittance(a, b, y, SVL_TAG);
+        svls.push({ svlIndex, joint: j, cable: c, a, b });
+      }
+    });
+  });
+
+  // The earth-fault current enters the earth at the station beyond which the fault lies and
+  // returns to the source neutral at the other: the case's fault phasor carries the sign.
+  builder.addInjection(jointNodes[last].earthBar!, cables.length, 1);
+  builder.addInjection(jointNodes[0].earthBar!, cables.length, -1);
+
+  function sameCircuitNextPhase(c: number): number {
+    return c - (c % 3) + ((c % 3) + 1) % 3;
+  }
+
+  return {
+    topology,
+    builder,
+    cables,
+    eccIds: study.eccs.map((e) => e.id),
+    jointNodes,
+    segments,
+    svls,
+    faultSourceIndex: cables.length,
+    routeStartBar: jointNodes[0].earthBar!,
+    routeEndBar: jointNodes[last].earthBar!,
+  };
+}
+
+function earthResistance(study: BondingStudy, joint: RouteJoint, isStart: boolean, isEnd: boolean): number {
+  const override = study.earthing.overrides.find((o) => o.jointIndex === joint.userJointIndex);
+  if (override) return override.resistanceOhm;
+  if (isStart) return study.earthing.routeStartOhm;
+  if (isEnd) return study.earthing.routeEndOhm;
+  return study.earthing.linkBoxOhm;
+}

@@ -1,0 +1,193 @@
+import type { BondingStudy, StudyCase } from '../../schemas/bonding-study.schema';
+import { abs, argDeg, sub } from '../complex';
+import { ENGINE_VERSION } from '../constants';
+import { IllConditionedError } from '../banded-lu';
+import { type CompiledNetwork, FloatingNodesError, type NetworkSolution } from '../network';
+import { CalculationError } from '../errors';
+import { caseSources, circuitCurrentA } from './case-sources';
+import { bondingCrossChecks } from './cross-checks';
+import { type BondingNetworkModel, SVL_TAG, buildBondingNetwork } from './network-model';
+import type { BondingResults, CaseResult, PointKind, PointResult } from './results';
+import { worstValues } from './worst-values';
+
+const PROFILE_STEPS = 6;
+
+/** Solves every case of a checked bonding study on one coupled network. */
+export function calculateBondingStudy(study: BondingStudy): BondingResults {
+  const model = buildBondingNetwork(study);
+  const compiled = new Map<boolean, CompiledNetwork>();
+  const networkFor = (conducting: boolean) => {
+    if (!compiled.has(conducting)) compiled.set(conducting, compileOrExplain(model, conducting));
+    return compiled.get(conducting)!;
+  };
+  const cases = study.cases.map((c) => {
+    const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), caseSources(study, model, c), c);
+    return caseResult(study, model, c, solution);
+  });
+  return {
+    kind: 'bonding',
+    engineVersion: ENGINE_VERSION,
+    routeLengthM: model.topology.lengthM,
+    cases,
+    worst: worstValues(cases),
+    crossChecks: bondingCrossChecks(study, model, cases),
+  };
+}
+
+function compileOrExplain(model: BondingNetworkModel, conducting: boolean): CompiledNetwork {
+  try {
+    return model.builder.compile(new Set(conducting ? [SVL_TAG] : []));
+  } catch (err) {
+    if (err instanceof FloatingNodesError) {
+      throw new CalculationError(`The bonding leaves sheaths or ECCs with no path to earth: ${err.labels.slice(0, 3).join('; ')}. Earth each sheath at least once.`, ['bonding']);
+    }
+    if (err instanceof IllConditionedError) {
+      throw new CalculationError('The network equations are ill-conditioned: check for extreme resistances (for example an earth resistance far below 1 mΩ or above 1 GΩ).', ['earthing']);
+    }
+    throw err;
+  }
+}
+
+function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof caseSources>, c: StudyCase): NetworkSolution {
+  try {
+    return network.solve(sources);
+  } catch (err) {
+    if (err instanceof IllConditionedError) {
+      throw new CalculationError(`Case "${c.id}" gives no finite solution: check its currents for extreme values.`, ['cases']);
+    }
+    throw err;
+  }
+}
+
+function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution): CaseResult {
+  const { topology, builder, cables, jointNodes } = model;
+  const last = topology.joints.length - 1;
+
+  const points: PointResult[] = [];
+  topology.joints.forEach((joint, j) => {
+    const midEarth = joint.join === 'straight' && joint.earthLeft;
+    if (joint.join === 'straight' && !midEarth) return;
+    const nodes = jointNodes[j];
+    const kind: PointKind =
+      j === 0 || j === last ? 'route-end'
+        : joint.join === 'cross' ? 'cross-bonding-link-box'
+          : midEarth ? 'mid-point-earthing'
+            : (joint.earthLeft && joint.earthRight) ? 'earthed-link-box' : 'open-end';
+    const seen = new Set<number>();
+    const sheathEnds: PointResult['sheathEnds'] = [];
+    (['arriving', 'leaving'] as const).forEach((side) => {
+      (side === 'arriving' ? nodes.left : nodes.right).forEach((node, k) => {
+        const rep = builder.find(node);
+        if (seen.has(rep)) return;
+        seen.add(rep);
+        const v = solution.voltage(node);
+        sheathEnds.push({ cable: cables[k].label, side, voltageV: abs(v), angleDeg: argDeg(v) });
+      });
+    });
+    const acrossJoint =
+      joint.hasLeft && joint.hasRight && joint.join !== 'straight'
+        ? cables.flatMap((cable, k) =>
+            builder.find(nodes.left[k]) === builder.find(nodes.right[k])
+              ? []
+              : [{ cable: cable.label, voltageV: abs(sub(solution.voltage(nodes.left[k]), solution.voltage(nodes.right[k]))) }],
+          )
+        : [];
+    const at = joint.userJointIndex === undefined ? `${joint.chainageM.toFixed(0)} m` : `joint ${joint.userJointIndex} (${joint.chainageM.toFixed(0)} m)`;
+    points.push({
+      jointIndex: joint.userJointIndex ?? null,
+      chainageM: joint.chainageM,
+      kind,
+      label: `${at}, ${kind.replace(/-/g, ' ')}`,
+      sheathEnds,
+      acrossJoint,
+      earthBarV: nodes.earthBar === undefined ? undefined : abs(solution.voltage(nodes.earthBar)),
+      eccV: [...nodes.ecc].map(([eccId, node]) => ({ eccId, voltageV: abs(solution.voltage(node)) })),
+      maxV: Math.max(0, ...sheathEnds.map((e) => e.voltageV)),
+    });
+  });
+
+  const svls = model.svls.map((s) => {
+    const spec = study.svls[s.svlIndex];
+    return {
+      svlIndex: s.svlIndex,
+      jointIndex: spec.jointIndex,
+      cable: cables[s.cable].label,
+      connection: spec.connection,
+      voltageV: abs(sub(solution.voltage(s.a), solution.voltage(s.b))),
+      continuousRatingV: spec.continuousRatingV,
+      tovRatingV: spec.tovRatingV,
+    };
+  });
+
+  const segmentCurrents = model.segments.map((s) => solution.segmentCurrents(s.networkIndex));
+  const sheathCurrents = cables.map((cable, k) => {
+    const perSegment = topology.segments.map((seg, i) => ({
+      sectionId: seg.sectionId,
+      startM: seg.startM,
+      lengthM: seg.lengthM,
+      currentA: abs(segmentCurrents[i][k]),
+    }));
+    return { cable: cable.label, maxA: Math.max(...perSegment.map((p) => p.currentA)), perSegment };
+  });
+  const eccCurrents = model.eccIds.map((eccId) => ({
+    eccId,
+    maxA: Math.max(
+      0,
+      ...model.segments.flatMap((s, i) => (s.eccIds.includes(eccId) ? [abs(segmentCurrents[i][cables.length + s.eccIds.indexOf(eccId)])] : [])),
+    ),
+  }));
+
+  const isLoad = c.kind === 'normal' || c.kind === 'emergency';
+  const lossFactors = isLoad
+    ? cables.flatMap((cable, k) => {
+        const current = circuitCurrentA(c, cable.circuitId);
+        if (current <= 0) return [];
+        const type = study.cableTypes.find((t) => t.id === study.circuits.find((x) => x.id === cable.circuitId)!.cableTypeId)!;
+        const sheathLoss = sheathCurrents[k].perSegment.reduce((s, p) => s + type.sheathResistanceOhmPerKm * p.lengthM * p.currentA ** 2, 0);
+        return [{ cable: cable.label, lossFactor: sheathLoss / (type.conductorResistanceOhmPerKm * topology.lengthM * current ** 2) }];
+      })
+    : [];
+
+  return {
+    caseId: c.id,
+    name: c.name,
+    kind: c.kind,
+    durationS: c.durationS,
+    points,
+    svls,
+    sheathCurrents,
+    eccCurrents,
+    lossFactors,
+    profile: routeProfile(model, solution),
+  };
+}
+
+/** Sheath and ECC voltages sampled along every segment; exact, since each varies linearly along a segment. */
+function routeProfile(model: BondingNetworkModel, solution: NetworkSolution): CaseResult['profile'] {
+  const { topology, cables, jointNodes, eccIds } = model;
+  const chainageM: number[] = [];
+  const sheath = cables.map(() => [] as Array<number | null>);
+  const ecc = eccIds.map(() => [] as Array<number | null>);
+  topology.segments.forEach((seg) => {
+    const from = jointNodes[seg.index];
+    const to = jointNodes[seg.index + 1];
+    for (let step = 0; step <= PROFILE_STEPS; step++) {
+      const t = step / PROFILE_STEPS;
+      chainageM.push(seg.startM + t * seg.lengthM);
+      const along = (a: number, b: number) => {
+        const va = solution.voltage(a);
+        const vb = solution.voltage(b);
+        return Math.hypot(va.re + t * (vb.re - va.re), va.im + t * (vb.im - va.im));
+      };
+      cables.forEach((_, k) => sheath[k].push(along(from.right[k], to.left[k])));
+      eccIds.forEach((id, e) => ecc[e].push(seg.eccIds.includes(id) ? along(from.ecc.get(id)!, to.ecc.get(id)!) : null));
+    }
+  });
+  return {
+    chainageM,
+    series: [
+      ...cables.map((cable, k) => ({ label: `sheath ${cable.label}`, kind: 'sheath' as const, voltageV: sheath[k] })),
+      ...eccIds.map((id, e) => ({ label: `ECC ${id}`, kind: 'ecc' as const, voltageV: ecc[e] })),
+    ],
+  };
+}

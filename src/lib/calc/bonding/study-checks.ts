@@ -1,0 +1,161 @@
+import type { BondingStudy } from '../../schemas/bonding-study.schema';
+import { cablePositions } from './cross-section';
+import { buildRouteTopology, svlPlacement } from './route-topology';
+
+export interface InputIssue {
+  path: (string | number)[];
+  message: string;
+}
+
+/**
+ * Cross-field checks of a bonding study that has the right shape: references, geometry and
+ * topology. Each issue names the field and says what to fix; an empty list means the core can
+ * solve the study.
+ */
+export function checkBondingStudy(study: BondingStudy): InputIssue[] {
+  const issues: InputIssue[] = [];
+  const report = (path: (string | number)[], message: string) => issues.push({ path, message });
+
+  for (const key of ['cableTypes', 'circuits', 'eccs', 'layouts', 'sections', 'cases'] as const) {
+    const seen = new Set<string>();
+    study[key].forEach((item, i) => {
+      if (seen.has(item.id)) report([key, i, 'id'], `The identifier "${item.id}" is used twice; make each one unique.`);
+      seen.add(item.id);
+    });
+  }
+  const cableTypes = new Map(study.cableTypes.map((c) => [c.id, c]));
+  const circuits = new Map(study.circuits.map((c) => [c.id, c]));
+  const layouts = new Map(study.layouts.map((l) => [l.id, l]));
+  const sections = new Map(study.sections.map((s, i) => [s.id, i]));
+
+  study.circuits.forEach((c, i) => {
+    if (!cableTypes.has(c.cableTypeId)) report(['circuits', i, 'cableTypeId'], `No cable type "${c.cableTypeId}": pick one from the cable types.`);
+  });
+  study.sections.forEach((s, i) => {
+    if (!layouts.has(s.layoutId)) report(['sections', i, 'layoutId'], `No layout "${s.layoutId}": pick one of the layouts.`);
+  });
+  study.eccs.forEach((e, i) => {
+    const from = sections.get(e.fromSectionId);
+    const to = sections.get(e.toSectionId);
+    if (from === undefined) report(['eccs', i, 'fromSectionId'], `No section "${e.fromSectionId}".`);
+    if (to === undefined) report(['eccs', i, 'toSectionId'], `No section "${e.toSectionId}".`);
+    if (from !== undefined && to !== undefined && from > to) report(['eccs', i, 'toSectionId'], 'The ECC must end at or after the section where it starts.');
+  });
+  checkLayouts(study, report, circuits, cableTypes);
+  checkBondingCoverage(study, report, sections);
+  checkCases(study, report, circuits);
+  if (issues.length) return issues;
+
+  // ECC positions are needed in every section the ECC runs along.
+  study.eccs.forEach((e, i) => {
+    for (let s = sections.get(e.fromSectionId)!; s <= sections.get(e.toSectionId)!; s++) {
+      const layout = layouts.get(study.sections[s].layoutId)!;
+      if (!layout.eccs.some((p) => p.eccId === e.id)) {
+        report(['eccs', i], `Section "${study.sections[s].id}" uses layout "${layout.id}", which gives no position for ECC "${e.id}". Add it to the layout.`);
+      }
+    }
+  });
+  if (issues.length) return issues;
+
+  const topology = buildRouteTopology(study);
+  const byUserJoint = new Map(topology.joints.filter((j) => j.userJointIndex !== undefined).map((j) => [j.userJointIndex!, j]));
+  study.svls.forEach((svl, i) => {
+    const joint = byUserJoint.get(svl.jointIndex);
+    if (!joint) {
+      report(['svls', i, 'jointIndex'], `Joint ${svl.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+      return;
+    }
+    const can = svlPlacement(joint);
+    if (svl.connection === 'to-earth' && !can.toEarth) {
+      report(['svls', i, 'jointIndex'], `Joint ${svl.jointIndex} has no open sheath end or cross-bonding link box, so an SVL to earth has nothing to protect there.`);
+    }
+    if (svl.connection === 'across-joint' && !can.acrossJoint) {
+      report(['svls', i, 'jointIndex'], `Joint ${svl.jointIndex} has no sectionalising insulation for an SVL across the joint.`);
+    }
+  });
+  study.earthing.overrides.forEach((o, i) => {
+    if (o.jointIndex > study.sections.length) report(['earthing', 'overrides', i, 'jointIndex'], `Joint ${o.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+  });
+  return issues;
+}
+
+type Report = (path: (string | number)[], message: string) => void;
+
+function checkLayouts(study: BondingStudy, report: Report, circuits: Map<string, unknown>, cableTypes: Map<string, BondingStudy['cableTypes'][number]>) {
+  study.layouts.forEach((layout, li) => {
+    const placed = new Set<string>();
+    const cables: Array<{ xM: number; depthM: number; radiusM: number; label: string }> = [];
+    layout.circuits.forEach((c, ci) => {
+      const path = ['layouts', li, 'circuits', ci];
+      if (!circuits.has(c.circuitId)) return report([...path, 'circuitId'], `No circuit "${c.circuitId}".`);
+      if (placed.has(c.circuitId)) return report([...path, 'circuitId'], `Circuit "${c.circuitId}" is placed twice in this layout.`);
+      placed.add(c.circuitId);
+      const type = cableTypes.get(study.circuits.find((x) => x.id === c.circuitId)!.cableTypeId);
+      if (!type) return;
+      const od = type.overallDiameterMm / 1000;
+      if (c.formation !== 'coordinates' && c.spacingM < od * (1 - 1e-9)) {
+        return report([...path, 'spacingM'], `The cables overlap: spacing ${c.spacingM} m is less than the cable's overall diameter ${od} m. Increase the spacing.`);
+      }
+      if (c.formation !== 'coordinates' && c.depthM < od) {
+        report([...path, 'depthM'], `The cables would stand out of the ground: depth ${c.depthM} m is less than the formation needs.`);
+      }
+      cablePositions(c).forEach((p, k) => cables.push({ ...p, radiusM: od / 2, label: `${c.circuitId}-${'abc'[k]}` }));
+    });
+    study.circuits.forEach((c) => {
+      if (!placed.has(c.id)) report(['layouts', li, 'circuits'], `Circuit "${c.id}" has no place in layout "${layout.id}". Add it.`);
+    });
+    for (let a = 0; a < cables.length; a++) {
+      for (let b = a + 1; b < cables.length; b++) {
+        const gap = Math.hypot(cables[a].xM - cables[b].xM, cables[a].depthM - cables[b].depthM);
+        if (gap < (cables[a].radiusM + cables[b].radiusM) * (1 - 1e-9)) {
+          report(['layouts', li, 'circuits'], `Cables ${cables[a].label} and ${cables[b].label} overlap (${gap.toFixed(3)} m apart, centre to centre). Move them apart.`);
+        }
+      }
+    }
+    layout.eccs.forEach((e, ei) => {
+      if (!study.eccs.some((x) => x.id === e.eccId)) report(['layouts', li, 'eccs', ei, 'eccId'], `No ECC "${e.eccId}".`);
+      const hit = cables.find((c) => Math.hypot(c.xM - e.xM, c.depthM - e.depthM) < c.radiusM);
+      if (hit) report(['layouts', li, 'eccs', ei], `The ECC lies inside cable ${hit.label}. Move it clear of the cables.`);
+    });
+  });
+}
+
+function checkBondingCoverage(study: BondingStudy, report: Report, sections: Map<string, number>) {
+  let next = 0;
+  study.bonding.forEach((group, gi) => {
+    if (group.kind === 'cross-bonded' && group.sectionIds.length !== 3) {
+      report(['bonding', gi, 'sectionIds'], `A cross-bonded major section needs exactly three minor sections; this one has ${group.sectionIds.length}.`);
+    }
+    group.sectionIds.forEach((sid, k) => {
+      const index = sections.get(sid);
+      if (index === undefined) return report(['bonding', gi, 'sectionIds', k], `No section "${sid}".`);
+      if (index !== next) {
+        report(['bonding', gi, 'sectionIds', k], `Section "${sid}" is out of route order here: bonding groups must cover the sections once each, in order (expected "${study.sections[next]?.id ?? '(none)'}").`);
+      }
+      next = index + 1;
+    });
+  });
+  if (next !== study.sections.length) {
+    report(['bonding'], `Sections after "${study.sections[next - 1]?.id ?? '(start)'}" have no bonding arrangement. Add them to a group.`);
+  }
+}
+
+function checkCases(study: BondingStudy, report: Report, circuits: Map<string, unknown>) {
+  study.cases.forEach((c, i) => {
+    const seen = new Set<string>();
+    c.currents.forEach((cur, k) => {
+      if (!circuits.has(cur.circuitId)) report(['cases', i, 'currents', k, 'circuitId'], `No circuit "${cur.circuitId}".`);
+      if (seen.has(cur.circuitId)) report(['cases', i, 'currents', k, 'circuitId'], `Circuit "${cur.circuitId}" has two currents in this case.`);
+      seen.add(cur.circuitId);
+    });
+    const isFault = c.kind === 'three-phase-fault' || c.kind === 'earth-fault';
+    if (isFault && c.durationS === undefined) report(['cases', i, 'durationS'], 'A fault case needs its duration, including back-up clearance.');
+    if (c.kind === 'earth-fault') {
+      if (!c.earthFault) report(['cases', i, 'earthFault'], 'An earth-fault case needs the faulted circuit, phase and current.');
+      else if (!circuits.has(c.earthFault.circuitId)) report(['cases', i, 'earthFault', 'circuitId'], `No circuit "${c.earthFault.circuitId}": the fault must be on a circuit of this study.`);
+    } else {
+      if (c.earthFault) report(['cases', i, 'earthFault'], `Only an earth-fault case has an earth fault; this case is "${c.kind}".`);
+      if (!c.currents.some((cur) => cur.currentA > 0)) report(['cases', i, 'currents'], 'Give a current above zero for at least one circuit.');
+    }
+  });
+}

@@ -1,0 +1,59 @@
+import { z } from 'zod';
+import { checkExposureStudy } from '../calc/exposure/exposure-checks';
+
+// An exposure study: metalwork running parallel to current-carrying conductors (an overhead
+// line, a cable route, a substation feeder) and the voltages induced on it.
+
+const id = z.string().trim().min(1, 'Give an identifier.').max(40);
+const positive = (what: string) => z.number({ error: `${what} must be a number.` }).positive(`${what} must be greater than zero.`);
+
+export const exposureStudySchema = z
+  .object({
+    kind: z.literal('exposure'),
+    title: z.string().min(1, 'Give the study a title.'),
+    frequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'Frequency must be 50 or 60 Hz.' }),
+    soilResistivityOhmM: positive('Soil resistivity'),
+    /** Conductors carrying the inducing currents; y is height above ground (negative when buried). */
+    sources: z.array(z.object({ id, name: z.string().default(''), xM: z.number(), yM: z.number() })).min(1, 'Add at least one source conductor.'),
+    object: z.object({
+      name: z.string().min(1, 'Name the metalwork.'),
+      type: z.enum(['fence', 'pipeline', 'telecom-cable', 'pilot-cable', 'other']),
+      xM: z.number(),
+      yM: z.number(),
+      parallelLengthM: positive('Length of parallelism'),
+      resistanceOhmPerKm: positive('Resistance of the metalwork'),
+      gmrMm: positive('Geometric mean radius of the metalwork'),
+      /** Which ends are earthed; the other end is open (or insulated). */
+      earthing: z.enum(['both-ends', 'start', 'end']),
+      earthStartOhm: positive('Earth resistance at the start').default(10),
+      earthEndOhm: positive('Earth resistance at the end').default(10),
+      /** Screening factor k (1: no screening). */
+      screeningFactor: z.number().gt(0, 'The screening factor must be above 0.').max(1, 'The screening factor cannot exceed 1.').default(1),
+      /** Pipelines: diameter of the coating defect used for the a.c. current density. */
+      coatingDefectDiameterMm: positive('Coating defect diameter').optional(),
+    }),
+    cases: z
+      .array(
+        z.object({
+          id,
+          name: z.string().min(1),
+          kind: z.enum(['normal', 'fault']),
+          durationS: positive('Duration').optional(),
+          currents: z.array(z.object({ sourceId: id, currentA: z.number().nonnegative('Current cannot be negative.'), angleDeg: z.number().default(0) })).min(1, 'Give the current in at least one source.'),
+        }),
+      )
+      .min(1, 'Add at least one case.'),
+    /** Where people can touch the metalwork: the ground they stand on. */
+    touch: z
+      .object({
+        bodyWeightKg: z.union([z.literal(50), z.literal(70)]).default(50),
+        surfaceLayer: z.object({ resistivityOhmM: positive('Surface layer resistivity'), thicknessM: positive('Surface layer thickness') }).optional(),
+      })
+      .default({ bodyWeightKg: 50 }),
+  })
+  .superRefine((study, ctx) => {
+    for (const issue of checkExposureStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+  });
+
+export type ExposureStudyInput = z.input<typeof exposureStudySchema>;
+export type ExposureStudy = z.output<typeof exposureStudySchema>;
