@@ -60,6 +60,10 @@ start_postgres() {
     log "PostgreSQL already running on 127.0.0.1:$port (reused)"
     PG_OWNED=0
   else
+    if port_in_use "$port"; then
+      log "port $port is taken by another program: choose another with the PG port variable in README.md"
+      return 1
+    fi
     pg_run "$PG_BIN/pg_ctl" -D "$data" -l "$data/server.log" \
       -o "-c listen_addresses=127.0.0.1 -p $port -k $data" -w start >/dev/null
     log "PostgreSQL started on 127.0.0.1:$port"
@@ -75,6 +79,7 @@ start_postgres() {
 stop_postgres() {
   if [ "${PG_OWNED:-0}" = 1 ] && [ -n "${PG_DATA:-}" ]; then
     pg_run "$PG_BIN/pg_ctl" -D "$PG_DATA" -m fast -w stop >/dev/null 2>&1 && log "PostgreSQL stopped"
+    PG_OWNED=0
   fi
 }
 
@@ -115,9 +120,15 @@ start_server() {
   wait_for_url "http://127.0.0.1:$SHEATHWISE_PORT/signin" 60 || { log "server did not answer"; return 1; }
 }
 
+# Runs from EXIT traps, where errexit still applies: nothing here may fail the shell early.
 stop_started() {
   local pid
-  for pid in "${STARTED_PIDS[@]}"; do kill "$pid" 2>/dev/null; done
-  for pid in "${STARTED_PIDS[@]}"; do wait "$pid" 2>/dev/null; done
-  stop_postgres
+  for pid in "${STARTED_PIDS[@]}"; do kill "$pid" 2>/dev/null || true; done
+  for pid in "${STARTED_PIDS[@]}"; do wait "$pid" 2>/dev/null || true; done
+  STARTED_PIDS=()
+  stop_postgres || true
+}
+
+port_in_use() {
+  (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null
 }

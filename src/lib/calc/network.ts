@@ -1,4 +1,4 @@
-import { type Complex, ZERO, add, mul, sub } from './complex';
+import { type Complex, ZERO } from './complex';
 import { BandedMatrix, IllConditionedError, factorBanded, solveFactored } from './banded-lu';
 import { invertComplex, multiplyComplex } from './dense-complex';
 
@@ -197,6 +197,11 @@ export class CompiledNetwork {
     return this.lu.bandwidth;
   }
 
+  /** The unknown (row of the system) that holds a node's voltage, or EARTH. */
+  unknownOf(node: number): number {
+    return this.unknown(node);
+  }
+
   /** The nodal current vector J for a case (Y·V = J). */
   rightHandSide(sources: Complex[]): { re: Float64Array; im: Float64Array } {
     const re = new Float64Array(this.size);
@@ -233,10 +238,20 @@ export class CompiledNetwork {
   }
 }
 
-/** inv(Z)·Z_ms·I_s: the short-circuit current each conductor's induced EMF drives. */
+/** inv(Z)·Z_ms·I_s: the short-circuit current each conductor's induced EMF drives (plain arithmetic: this runs per segment and case). */
 function segmentDrive(seg: Segment, sources: Complex[]): Complex[] {
   const { sourceGain, sourceIndices } = seg.coupling;
-  return sourceGain.map((row) => row.reduce((s, g, c) => add(s, mul(g, sources[sourceIndices[c]])), ZERO));
+  return sourceGain.map((row) => {
+    let re = 0;
+    let im = 0;
+    for (let c = 0; c < row.length; c++) {
+      const g = row[c];
+      const s = sources[sourceIndices[c]];
+      re += g.re * s.re - g.im * s.im;
+      im += g.re * s.im + g.im * s.re;
+    }
+    return { re, im };
+  });
 }
 
 export class NetworkSolution {
@@ -259,14 +274,22 @@ export class NetworkSolution {
   segmentCurrents(index: number): Complex[] {
     const seg = this.segments[index];
     const { from, to } = this.segmentUnknowns[index];
-    const at = (u: number): Complex => (u === EARTH ? ZERO : { re: this.re[u], im: this.im[u] });
-    const drop = from.map((f, i) => sub(at(f), at(to[i])));
+    const n = from.length;
+    const dropRe = new Float64Array(n);
+    const dropIm = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      dropRe[i] = (from[i] === EARTH ? 0 : this.re[from[i]]) - (to[i] === EARTH ? 0 : this.re[to[i]]);
+      dropIm[i] = (from[i] === EARTH ? 0 : this.im[from[i]]) - (to[i] === EARTH ? 0 : this.im[to[i]]);
+    }
     const drive = segmentDrive(seg, this.sources);
-    return seg.coupling.zInv.map((row, i) =>
-      sub(
-        row.reduce((s, y, j) => add(s, mul({ re: y.re / seg.lengthM, im: y.im / seg.lengthM }, drop[j])), ZERO),
-        drive[i],
-      ),
-    );
+    return seg.coupling.zInv.map((row, i) => {
+      let re = 0;
+      let im = 0;
+      for (let j = 0; j < n; j++) {
+        re += row[j].re * dropRe[j] - row[j].im * dropIm[j];
+        im += row[j].re * dropIm[j] + row[j].im * dropRe[j];
+      }
+      return { re: re / seg.lengthM - drive[i].re, im: im / seg.lengthM - drive[i].im };
+    });
   }
 }

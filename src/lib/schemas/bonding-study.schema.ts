@@ -146,9 +146,14 @@ export const bondingStudyBaseSchema = z.object({
   cases: z.array(caseSchema).min(1, 'Add at least one case.'),
 });
 
-export const bondingStudySchema = bondingStudyBaseSchema.superRefine((study, ctx) => {
-  for (const issue of checkBondingStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
-});
+// Cross-field checks run once every field is valid on its own, so they can trust the numbers.
+const onlyWhenFieldsValid = { when: (payload: { issues: unknown[] }) => payload.issues.length === 0 };
+
+export const bondingStudySchema = bondingStudyBaseSchema.check(
+  z.superRefine((study: z.output<typeof bondingStudyBaseSchema>, ctx) => {
+    for (const issue of checkBondingStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+  }, onlyWhenFieldsValid),
+);
 
 export type BondingStudyInput = z.input<typeof bondingStudySchema>;
 export type BondingStudy = z.output<typeof bondingStudySchema>;

@@ -7,7 +7,7 @@ import { checkExposureStudy } from '../calc/exposure/exposure-checks';
 const id = z.string().trim().min(1, 'Give an identifier.').max(40);
 const positive = (what: string) => z.number({ error: `${what} must be a number.` }).positive(`${what} must be greater than zero.`);
 
-export const exposureStudySchema = z
+const exposureStudyFieldsSchema = z
   .object({
     kind: z.literal('exposure'),
     title: z.string().min(1, 'Give the study a title.'),
@@ -50,10 +50,17 @@ export const exposureStudySchema = z
         surfaceLayer: z.object({ resistivityOhmM: positive('Surface layer resistivity'), thicknessM: positive('Surface layer thickness') }).optional(),
       })
       .default({ bodyWeightKg: 50 }),
-  })
-  .superRefine((study, ctx) => {
-    for (const issue of checkExposureStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
   });
+
+type ExposureStudyFields = z.output<typeof exposureStudyFieldsSchema>;
+
+export const exposureStudySchema = exposureStudyFieldsSchema
+  .check(
+    // Cross-field checks run once every field is valid on its own.
+    z.superRefine((study: ExposureStudyFields, ctx) => {
+      for (const issue of checkExposureStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+    }, { when: (payload) => payload.issues.length === 0 }),
+  );
 
 export type ExposureStudyInput = z.input<typeof exposureStudySchema>;
 export type ExposureStudy = z.output<typeof exposureStudySchema>;

@@ -1,5 +1,5 @@
 import type { BondingStudy, StudyCase } from '../../schemas/bonding-study.schema';
-import { abs, argDeg, sub } from '../complex';
+import { type Complex, abs, argDeg, sub } from '../complex';
 import { ENGINE_VERSION } from '../constants';
 import { IllConditionedError } from '../banded-lu';
 import { type CompiledNetwork, FloatingNodesError, type NetworkSolution } from '../network';
@@ -7,7 +7,7 @@ import { CalculationError } from '../errors';
 import { caseSources, circuitCurrentA } from './case-sources';
 import { bondingCrossChecks } from './cross-checks';
 import { type BondingNetworkModel, SVL_TAG, buildBondingNetwork } from './network-model';
-import type { BondingResults, CaseResult, PointKind, PointResult } from './results';
+import type { BondingResults, CaseResult, PointKind, PointResult, ProfileSeries } from './results';
 import { worstValues } from './worst-values';
 
 const PROFILE_STEPS = 6;
@@ -166,28 +166,22 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
 function routeProfile(model: BondingNetworkModel, solution: NetworkSolution): CaseResult['profile'] {
   const { topology, cables, jointNodes, eccIds } = model;
   const chainageM: number[] = [];
-  const sheath = cables.map(() => [] as Array<number | null>);
-  const ecc = eccIds.map(() => [] as Array<number | null>);
-  topology.segments.forEach((seg) => {
+  const series: ProfileSeries[] = [
+    ...cables.map((cable) => ({ label: `sheath ${cable.label}`, kind: 'sheath' as const, voltageV: [] as Array<number | null> })),
+    ...eccIds.map((id) => ({ label: `ECC ${id}`, kind: 'ecc' as const, voltageV: [] as Array<number | null> })),
+  ];
+  for (const seg of topology.segments) {
     const from = jointNodes[seg.index];
     const to = jointNodes[seg.index + 1];
+    const ends: Array<[Complex, Complex] | null> = [
+      ...cables.map((_, k): [Complex, Complex] => [solution.voltage(from.right[k]), solution.voltage(to.left[k])]),
+      ...eccIds.map((id): [Complex, Complex] | null => (seg.eccIds.includes(id) ? [solution.voltage(from.ecc.get(id)!), solution.voltage(to.ecc.get(id)!)] : null)),
+    ];
     for (let step = 0; step <= PROFILE_STEPS; step++) {
       const t = step / PROFILE_STEPS;
       chainageM.push(seg.startM + t * seg.lengthM);
-      const along = (a: number, b: number) => {
-        const va = solution.voltage(a);
-        const vb = solution.voltage(b);
-        return Math.hypot(va.re + t * (vb.re - va.re), va.im + t * (vb.im - va.im));
-      };
-      cables.forEach((_, k) => sheath[k].push(along(from.right[k], to.left[k])));
-      eccIds.forEach((id, e) => ecc[e].push(seg.eccIds.includes(id) ? along(from.ecc.get(id)!, to.ecc.get(id)!) : null));
+      ends.forEach((e, k) => series[k].voltageV.push(e && Math.hypot(e[0].re + t * (e[1].re - e[0].re), e[0].im + t * (e[1].im - e[0].im))));
     }
-  });
-  return {
-    chainageM,
-    series: [
-      ...cables.map((cable, k) => ({ label: `sheath ${cable.label}`, kind: 'sheath' as const, voltageV: sheath[k] })),
-      ...eccIds.map((id, e) => ({ label: `ECC ${id}`, kind: 'ecc' as const, voltageV: ecc[e] })),
-    ],
-  };
+  }
+  return { chainageM, series };
 }

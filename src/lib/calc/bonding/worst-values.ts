@@ -55,8 +55,13 @@ function pointVoltages(c: CaseResult): Candidate[] {
   return c.points.flatMap((p) => p.sheathEnds.map((e) => ({ value: e.voltageV, where: `${p.label}, sheath ${e.cable}` })));
 }
 
+/** The highest point of each series only: profiles are long, and only the maximum matters. */
 function profileVoltages(c: CaseResult): Candidate[] {
-  return c.profile.series.flatMap((s) =>
-    s.voltageV.flatMap((v, i) => (v === null ? [] : [{ value: v, where: `${s.label} at ${c.profile.chainageM[i].toFixed(0)} m` }])),
-  );
+  return c.profile.series.flatMap((s) => {
+    let top = -1;
+    s.voltageV.forEach((v, i) => {
+      if (v !== null && (top < 0 || v > s.voltageV[top]!)) top = i;
+    });
+    return top < 0 ? [] : [{ value: s.voltageV[top]!, where: `${s.label} at ${c.profile.chainageM[top].toFixed(0)} m` }];
+  });
 }

@@ -1,0 +1,60 @@
+// npm run bench: timing of the coupled-network solver on reference routes. Not part of the tests.
+import { performance } from 'node:perf_hooks';
+import { calculateBondingStudy } from '../src/lib/calc/bonding/solve-bonding';
+import { buildBondingNetwork } from '../src/lib/calc/bonding/network-model';
+import { caseSources } from '../src/lib/calc/bonding/case-sources';
+import { abs, sub } from '../src/lib/calc/complex';
+import { solveWithMathjs } from '../tests/helpers/dense-reference';
+import { crossBondedRoute } from './reference-routes';
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+function timeIt(fn: () => void, runs: number): number {
+  for (let i = 0; i < 5; i++) fn(); // warm-up: let the JIT settle
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    times.push(performance.now() - t0);
+  }
+  return median(times);
+}
+
+function solveAllCases(study: ReturnType<typeof crossBondedRoute>) {
+  const model = buildBondingNetwork(study);
+  const network = model.builder.compile();
+  return study.cases.map((c) => network.solve(caseSources(study, model, c)));
+}
+
+const large = crossBondedRoute({ circuits: 2, majorSections: 30, withEcc: true });
+const largeModel = buildBondingNetwork(large);
+const largeNet = largeModel.builder.compile();
+const naive = largeModel.jointNodes.reduce((n, j) => n + j.left.length + j.right.length + j.ecc.size + (j.earthBar === undefined ? 0 : 1), 0);
+console.log('Large route: 2 circuits, 30 cross-bonded major sections (90 minor sections), one ECC, 8 cases');
+console.log(`  unknowns: ${naive} node voltages before merging bonds, ${largeNet.size} after; half-bandwidth ${largeNet.bandwidth}`);
+console.log(`  network solve (assemble, factor, 8 cases):  median ${timeIt(() => solveAllCases(large), 50).toFixed(2)} ms  (target ≤ 10 ms)`);
+console.log(`  full calculation with all outputs:          median ${timeIt(() => calculateBondingStudy(large), 30).toFixed(2)} ms`);
+
+const medium = crossBondedRoute({ circuits: 1, majorSections: 5, withEcc: false });
+const mediumModel = buildBondingNetwork(medium);
+const mediumNet = mediumModel.builder.compile();
+const sources = medium.cases.map((c) => caseSources(medium, mediumModel, c));
+const banded = timeIt(() => solveAllCases(medium), 50);
+const t0 = performance.now();
+const dense = sources.map((s) => solveWithMathjs(mediumNet, s));
+const mathjsMs = performance.now() - t0;
+let worst = 0;
+sources.forEach((s, k) => {
+  const ours = mediumNet.solve(s);
+  const scale = Math.max(...dense[k].map(abs));
+  mediumModel.jointNodes.forEach((j) =>
+    [...j.left, ...j.right].forEach((node) => {
+      const u = mediumNet.unknownOf(node);
+      if (u >= 0) worst = Math.max(worst, abs(sub(ours.voltage(node), dense[k][u])) / scale);
+    }),
+  );
+});
+console.log('Medium route: 1 circuit, 5 cross-bonded major sections, 8 cases');
+console.log(`  unknowns ${mediumNet.size}; banded ${banded.toFixed(3)} ms vs mathjs dense ${mathjsMs.toFixed(1)} ms: ${(mathjsMs / banded).toFixed(0)}× faster (target ≥ 50×)`);
+console.log(`  largest node-voltage difference: ${worst.toExponential(2)} relative (target ≤ 1e-8)`);
+console.log(`Peak memory: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MiB resident`);
