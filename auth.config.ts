@@ -3,7 +3,7 @@ import { CredentialsSignin } from '@auth/core/errors';
 import { defineConfig } from 'auth-astro';
 import { z } from 'zod';
 import { serverConfig } from './src/lib/config.server';
-import { database } from './src/lib/db/database.server';
+import { database } from './src/lib/server/services.server';
 import { verifySignIn } from './src/lib/auth/sign-in';
 
 class AccountLocked extends CredentialsSignin {

@@ -11,7 +11,7 @@ try {
   await migrateDatabase(db);
   console.log('[sheathwise] migrations applied');
   if (process.argv.includes('--seed')) {
-    const seeded = await seedDemo(db);
+    const seeded = await seedDemo(db, pool);
     console.log(seeded ? '[sheathwise] demo scenario seeded' : '[sheathwise] demo scenario already present (kept)');
   }
 } finally {

@@ -1,14 +1,17 @@
 import { defineMiddleware } from 'astro:middleware';
 import { getSession } from 'auth-astro/server';
-import { database } from './lib/db/database.server';
+import { database, services } from './lib/server/services.server';
 import { loadSessionUser } from './lib/db/users.repo';
 import { AppError } from './lib/errors';
 import { errorResponse } from './lib/server/http';
 
-// Reachable without a session: sign-in, Auth.js's own routes, the health probe, static files.
-const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/_astro/', '/favicon'];
+// Reachable without a session: sign-in, Auth.js's own routes, the health probe, accepting an
+// invitation (the link's token is the credential), static files.
+const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/api/invitations/accept', '/invitation/', '/_astro/', '/favicon'];
 
 export const onRequest = defineMiddleware(async (context, next) => {
+  // The first request starts the mail worker, so queued messages go out without waiting for a workflow call.
+  void services().catch((err) => console.error('[services]', err));
   const { pathname } = context.url;
   context.locals.user = null;
   if (PUBLIC_PREFIXES.some((p) => pathname.startsWith(p))) return next();

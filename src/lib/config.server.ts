@@ -7,6 +7,9 @@ const configSchema = z.object({
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().positive().default(1025),
   MAIL_FROM: z.string().default('Sheathwise <no-reply@sheathwise.invalid>'),
+  /** The address people use to reach the app, for links in e-mails. */
+  APP_URL: z.string().url().default(`http://127.0.0.1:${process.env.SHEATHWISE_PORT ?? 4321}`),
+  MAIL_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().positive().default(5),
   SIGN_IN_LOCK_SECONDS: z.coerce.number().int().positive().default(300),
 });

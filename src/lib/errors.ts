@@ -17,6 +17,16 @@ export const errorCatalogue = {
     title: 'Changed by someone else',
     message: 'The record changed since you loaded it. Reload and try again.',
   },
+  StepRefused: {
+    status: 422,
+    title: 'This step cannot be taken yet',
+    message: 'A condition for this step is not met; the message says which.',
+  },
+  ReadOnly: {
+    status: 409,
+    title: 'Read-only',
+    message: 'This revision can no longer change. Start a new revision to make changes.',
+  },
   Unavailable: {
     status: 503,
     title: 'Service unavailable',

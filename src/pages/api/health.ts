@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { serverConfig } from '../../lib/config.server';
-import { database } from '../../lib/db/database.server';
+import { database } from '../../lib/server/services.server';
 import { checkHealth } from '../../lib/server/health';
 
 export const GET: APIRoute = async () => {

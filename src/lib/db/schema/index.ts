@@ -1,2 +1,6 @@
 export * from './users';
 export * from './projects';
+export * from './limit-sets';
+export * from './studies';
+export * from './audit';
+export * from './invitations';

@@ -1,6 +1,6 @@
 import { authorize } from '../../../lib/server/authorize';
 import { endpoint } from '../../../lib/server/http';
-import { database } from '../../../lib/db/database.server';
+import { database } from '../../../lib/server/services.server';
 import { listProjectsFor } from '../../../lib/db/projects.repo';
 
 export const GET = endpoint(async ({ locals }) => {

@@ -1,0 +1,29 @@
+import { drizzle } from 'drizzle-orm/node-postgres';
+import type pg from 'pg';
+import type { Database } from './client';
+import * as schema from './schema';
+
+/** Runs raw SQL on the transaction's connection (for pg-boss, so jobs commit with the change). */
+export interface SqlExecutor {
+  executeSql(text: string, values: unknown[]): Promise<{ rows: unknown[] }>;
+}
+
+/**
+ * One database transaction on one pooled connection, shared by Drizzle and by raw SQL (the job
+ * queue): either everything the callback wrote commits, or none of it does.
+ */
+export async function inTransaction<T>(pool: pg.Pool, work: (tx: Database, sqlExecutor: SqlExecutor) => Promise<T>): Promise<T> {
+  const client = await pool.connect();
+  try {
+    await client.query('begin');
+    const tx = drizzle(client, { schema }) as unknown as Database;
+    const result = await work(tx, { executeSql: (text, values) => client.query(text, values as unknown[]) });
+    await client.query('commit');
+    return result;
+  } catch (err) {
+    await client.query('rollback').catch(() => undefined);
+    throw err;
+  } finally {
+    client.release();
+  }
+}

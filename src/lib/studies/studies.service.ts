@@ -1,0 +1,166 @@
+import { and, asc, desc, eq, ilike, inArray, or, sql } from 'drizzle-orm';
+import type { AppServices } from '../services';
+import type { SessionUser } from '../auth/roles';
+import { AppError } from '../errors';
+import { checklistItems, revisions, studies } from '../db/schema';
+import { inTransaction } from '../db/transaction';
+import { appendAudit } from '../audit/audit-log';
+import { inputsHash } from '../canonical-json';
+import { jsonDiff } from '../json-diff';
+import { CalculationError, ENGINE_VERSION, calculateStudy, evaluateCompliance } from '../calc';
+import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '../workflow/revision.machine';
+import { latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
+import { checklistRows } from './checklist-rows';
+import { parseStudyInputs } from './study-input';
+import type { Database } from '../db/client';
+
+export interface NewStudy {
+  code: string;
+  title: string;
+  kind: 'bonding' | 'exposure';
+  limitSetId: string;
+  inputs: unknown;
+}
+
+/** Creates a study and its first revision (draft, designed by the actor). */
+export async function createStudy(s: AppServices, actor: SessionUser, projectId: string, input: NewStudy) {
+  const inputs = parseStudyInputs(input.inputs, input.kind);
+  return inTransaction(s.pool, async (tx) => {
+    const [clash] = await tx.select({ id: studies.id }).from(studies).where(and(eq(studies.projectId, projectId), eq(studies.code, input.code)));
+    if (clash) throw new AppError('InvalidInput', undefined, [{ field: 'code', message: `Code ${input.code} is already used in this project.` }]);
+    const [study] = await tx.insert(studies).values({ projectId, code: input.code, title: input.title, kind: input.kind, limitSetId: input.limitSetId, createdBy: actor.id }).returning();
+    const [revision] = await tx
+      .insert(revisions)
+      .values({ studyId: study.id, number: 1, machineVersion: REVISION_MACHINE_VERSION, inputs, inputsHash: inputsHash(inputs), designerId: actor.id })
+      .returning();
+    await appendAudit(tx, { actorId: actor.id, type: 'study.created', projectId, studyId: study.id, revisionId: revision.id, detail: { code: study.code, title: study.title, kind: study.kind } });
+    return { study, revision };
+  });
+}
+
+function assertEditableBy(actor: SessionUser, revision: { state: RevisionState; designerId: string }) {
+  if (!editableStates.has(revision.state)) throw new AppError('ReadOnly', `The revision is ${revision.state.replace(/_/g, ' ')}: its inputs can no longer change.`);
+  if (revision.designerId !== actor.id) throw new AppError('Forbidden', 'Only the designer of this revision can change it.');
+}
+
+/** Replaces a revision's inputs; stale writers (another version) get Conflict. */
+export async function updateInputs(s: AppServices, actor: SessionUser, revisionId: string, raw: unknown, expectedVersion: number) {
+  const { revision, study } = await loadRevisionScope(s.db, revisionId);
+  assertEditableBy(actor, revision);
+  const inputs = parseStudyInputs(raw, study.kind);
+  return inTransaction(s.pool, async (tx) => {
+    const [updated] = await tx
+      .update(revisions)
+      .set({ inputs, inputsHash: inputsHash(inputs), version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(revisions.id, revisionId), eq(revisions.version, expectedVersion), inArray(revisions.state, [...editableStates])))
+      .returning();
+    if (!updated) throw new AppError('Conflict');
+    await appendAudit(tx, { actorId: actor.id, type: 'revision.inputs-changed', projectId: study.projectId, studyId: study.id, revisionId, detail: { changes: jsonDiff(revision.inputs, inputs) } });
+    return updated;
+  });
+}
+
+/** Calculates a revision, stores the results with the engine version and inputs hash, and refreshes its checklist. */
+export async function calculateRevision(s: AppServices, actor: SessionUser, revisionId: string) {
+  const { revision, study } = await loadRevisionScope(s.db, revisionId);
+  assertEditableBy(actor, revision);
+  const inputs = parseStudyInputs(revision.inputs, study.kind);
+  const limits = await latestLimitSetVersion(s.db, study.limitSetId);
+  let results;
+  try {
+    results = calculateStudy(inputs);
+  } catch (err) {
+    if (err instanceof CalculationError) throw new AppError('InvalidInput', err.message, [{ field: `inputs.${err.path.join('.') || '(study)'}`, message: err.message }]);
+    throw err;
+  }
+  const computed = evaluateCompliance(inputs, results, { name: study.title, version: limits.version, limits: limits.limits });
+  return inTransaction(s.pool, async (tx) => {
+    const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
+    const [updated] = await tx
+      .update(revisions)
+      .set({ results, resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(revisions.id, revisionId), eq(revisions.version, revision.version)))
+      .returning();
+    if (!updated) throw new AppError('Conflict');
+    await tx.delete(checklistItems).where(eq(checklistItems.revisionId, revisionId));
+    const rows = checklistRows(revisionId, computed, limits.manualItems, existing);
+    if (rows.length) await tx.insert(checklistItems).values(rows);
+    await appendAudit(tx, {
+      actorId: actor.id,
+      type: 'revision.calculated',
+      projectId: study.projectId,
+      studyId: study.id,
+      revisionId,
+      detail: {
+        engineVersion: ENGINE_VERSION,
+        inputsHash: revision.inputsHash,
+        limitSetVersion: limits.version,
+        verdicts: { pass: computed.filter((c) => c.status === 'pass').length, fail: computed.filter((c) => c.status === 'fail').length, noLimit: computed.filter((c) => c.status === 'no-limit').length },
+      },
+    });
+    return updated;
+  });
+}
+
+const OPEN_STATES: RevisionState[] = ['draft', 'ready_for_check', 'in_check', 'returned', 'checked'];
+
+/** Starts the next revision of a study from a copy of the latest revision's inputs. */
+export async function startNewRevision(s: AppServices, actor: SessionUser, studyId: string) {
+  const { study } = await loadStudyScope(s.db, studyId);
+  return inTransaction(s.pool, async (tx) => {
+    const all = await tx.select().from(revisions).where(eq(revisions.studyId, studyId)).orderBy(desc(revisions.number)).for('update');
+    const open = all.find((r) => OPEN_STATES.includes(r.state));
+    if (open) throw new AppError('StepRefused', `Revision ${open.number} is still ${open.state.replace(/_/g, ' ')}: finish or withdraw it first.`);
+    const latest = all[0];
+    const [revision] = await tx
+      .insert(revisions)
+      .values({ studyId, number: latest.number + 1, machineVersion: REVISION_MACHINE_VERSION, inputs: latest.inputs, inputsHash: latest.inputsHash, designerId: actor.id, basedOnId: latest.id })
+      .returning();
+    await appendAudit(tx, { actorId: actor.id, type: 'revision.created', projectId: study.projectId, studyId, revisionId: revision.id, detail: { number: revision.number, basedOn: latest.number } });
+    return revision;
+  });
+}
+
+export interface StudyListQuery {
+  page: number;
+  pageSize: number;
+  sort: 'code' | 'title' | 'updated';
+  direction: 'asc' | 'desc';
+  state?: RevisionState;
+  kind?: 'bonding' | 'exposure';
+  search?: string;
+}
+
+/** A page of a project's studies with their latest revision; sorted and filtered in SQL. */
+export async function listStudies(db: Database, projectId: string, q: StudyListQuery) {
+  const latest = db
+    .select({ studyId: revisions.studyId, number: sql<number>`max(${revisions.number})`.as('latest_number') })
+    .from(revisions)
+    .groupBy(revisions.studyId)
+    .as('latest');
+  const where = and(
+    eq(studies.projectId, projectId),
+    q.kind ? eq(studies.kind, q.kind) : undefined,
+    q.state ? eq(revisions.state, q.state) : undefined,
+    q.search ? or(ilike(studies.code, `%${q.search}%`), ilike(studies.title, `%${q.search}%`)) : undefined,
+  );
+  const sortColumn = q.sort === 'code' ? studies.code : q.sort === 'title' ? studies.title : revisions.updatedAt;
+  const base = db
+    .select({
+      id: studies.id,
+      code: studies.code,
+      title: studies.title,
+      kind: studies.kind,
+      revisionId: revisions.id,
+      revisionNumber: revisions.number,
+      state: revisions.state,
+      updatedAt: revisions.updatedAt,
+    })
+    .from(studies)
+    .innerJoin(latest, eq(latest.studyId, studies.id))
+    .innerJoin(revisions, and(eq(revisions.studyId, studies.id), eq(revisions.number, latest.number)))
+    .where(where);
+  const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(base.as('page'));
+  const rows = await base.orderBy(q.direction === 'asc' ? asc(sortColumn) : desc(sortColumn), asc(studies.id)).limit(q.pageSize).offset(q.page * q.pageSize);
+  return { total, page: q.page, pageSize: q.pageSize, rows };
+}

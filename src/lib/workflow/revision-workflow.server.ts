@@ -1,0 +1,129 @@
+import { and, eq, ne, sql } from 'drizzle-orm';
+import { transition } from 'xstate';
+import type { AppServices } from '../services';
+import type { SessionUser } from '../auth/roles';
+import { AppError } from '../errors';
+import { remarks, revisions, signOffs } from '../db/schema';
+import { inTransaction } from '../db/transaction';
+import { appendAudit } from '../audit/audit-log';
+import { loadRevisionScope, membersWithRole } from '../db/revisions.repo';
+import { workflowMessage, type MessageContext } from '../mail/workflow-messages';
+import type { OutgoingMail } from '../mail/mail-queue';
+import { type UserEvent, type WorkflowRole, refusal, revisionMachine, revisionSnapshot } from './revision.machine';
+import { revisionFacts } from './revision-facts';
+
+export type StepName = 'submit' | 'startCheck' | 'return' | 'pass' | 'issue' | 'withdraw';
+
+export interface StepRequest {
+  step: StepName;
+  /** The revision version the person saw; a different current version means someone else acted first. */
+  version: number;
+  reason?: string;
+  /** The sign-off statement for submit, pass and issue. */
+  statement?: string;
+}
+
+const RECOMPUTE: ReadonlySet<StepName> = new Set(['submit', 'pass', 'issue']);
+const SIGN_OFF_ROLE: Partial<Record<StepName, 'designer' | 'checker' | 'approver'>> = { submit: 'designer', pass: 'checker', issue: 'approver' };
+const DEFAULT_STATEMENT: Record<'designer' | 'checker' | 'approver', string> = {
+  designer: 'I prepared this calculation and believe it to be correct and complete.',
+  checker: 'I have checked this calculation independently and agree with its results.',
+  approver: 'I approve this calculation for issue.',
+};
+
+/**
+ * Applies a workflow step with the revision machine as the authority: guards checked on fresh
+ * facts, then state, sign-off, audit event and e-mails written in one transaction with an
+ * optimistic version check.
+ */
+export async function applyStep(s: AppServices, actor: SessionUser, revisionId: string, req: StepRequest) {
+  const { revision, study, project } = await loadRevisionScope(s.db, revisionId);
+  const roles = (actor.projectRoles[project.id] ?? []) as WorkflowRole[];
+  const facts = await revisionFacts(s.db, revision, study, { recompute: RECOMPUTE.has(req.step), reason: req.reason });
+  const event: UserEvent = { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts };
+  const context = { designerId: revision.designerId, checkerId: revision.checkerId, approverId: revision.approverId };
+  const snapshot = revisionSnapshot(revision.state, context);
+
+  if (revision.version !== req.version) throw new AppError('Conflict');
+  if (!snapshot.can(event)) {
+    const reasonText = refusalText(revision.state, context, event);
+    throw new AppError(reasonText.kind, reasonText.message);
+  }
+  const [next] = transition(revisionMachine, snapshot, event);
+  const to = next.value as typeof revision.state;
+
+  return inTransaction(s.pool, async (tx, sqlExecutor) => {
+    const now = new Date();
+    const [updated] = await tx
+      .update(revisions)
+      .set({
+        state: to,
+        checkerId: next.context.checkerId,
+        approverId: next.context.approverId,
+        version: sql`${revisions.version} + 1`,
+        updatedAt: now,
+        ...(to === 'issued' ? { issuedAt: now } : {}),
+      })
+      .where(and(eq(revisions.id, revisionId), eq(revisions.version, req.version)))
+      .returning();
+    if (!updated) throw new AppError('Conflict');
+
+    const signRole = SIGN_OFF_ROLE[req.step];
+    if (signRole) await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole] });
+    if (req.step === 'return') await tx.insert(remarks).values({ revisionId, authorId: actor.id, body: req.reason!.trim() });
+
+    const scope = { projectId: project.id, studyId: study.id };
+    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}) } });
+
+    if (to === 'issued') {
+      const replaced = await tx
+        .update(revisions)
+        .set({ state: 'superseded', version: sql`${revisions.version} + 1`, updatedAt: now })
+        .where(and(eq(revisions.studyId, study.id), eq(revisions.state, 'issued'), ne(revisions.id, revisionId)))
+        .returning({ id: revisions.id, number: revisions.number });
+      for (const r of replaced) {
+        await appendAudit(tx, { actorId: actor.id, type: 'revision.supersede', ...scope, revisionId: r.id, detail: { state: { from: 'issued', to: 'superseded' }, supersededBy: revision.number } });
+      }
+    }
+
+    if (s.mail) {
+      const messages = await notifications(s, req.step, {
+        appUrl: s.appUrl,
+        projectName: project.name,
+        studyTitle: study.title,
+        revisionNumber: revision.number,
+        revisionId,
+        actorName: actor.name,
+        reason: req.reason,
+      }, project.id, revision.designerId, actor.id);
+      await s.mail.enqueue(sqlExecutor, messages);
+    }
+    return updated;
+  });
+}
+
+type StateName = Parameters<typeof refusal>[0];
+
+/** The catalogue error for a refused step: a state that has moved on is a conflict. */
+function refusalText(state: StateName, context: Parameters<typeof refusal>[1], event: UserEvent): { kind: 'Forbidden' | 'StepRefused' | 'Conflict'; message: string } {
+  const why = acceptsInState(state, event.type) ? refusal(state, context, event) : null;
+  if (!why) return { kind: 'Conflict', message: `A revision that is ${state.replace(/_/g, ' ')} cannot take the step "${event.type.slice('revision.'.length)}".` };
+  return { kind: why.rule === 'role' ? 'Forbidden' : 'StepRefused', message: why.message };
+}
+
+function acceptsInState(state: StateName, type: UserEvent['type']): boolean {
+  const node = revisionMachine.states[state];
+  return !!node?.on && type in node.on;
+}
+
+/** Who hears about a step: submit → checkers, return → designer, pass → approvers, issue → all members. */
+async function notifications(s: AppServices, step: StepName, c: MessageContext, projectId: string, designerId: string, actorId: string): Promise<OutgoingMail[]> {
+  const kind = ({ submit: 'submitted', return: 'returned', pass: 'checked', issue: 'issued' } as const)[step as 'submit'];
+  if (!kind) return [];
+  const people =
+    step === 'submit' ? await membersWithRole(s.db, projectId, ['checker'])
+      : step === 'pass' ? await membersWithRole(s.db, projectId, ['approver'])
+        : step === 'issue' ? await membersWithRole(s.db, projectId, ['designer', 'checker', 'approver', 'auditor'])
+          : (await membersWithRole(s.db, projectId, ['designer'])).filter((p) => p.id === designerId);
+  return people.filter((p) => p.id !== actorId).map((p) => workflowMessage(kind, c, p.email));
+}

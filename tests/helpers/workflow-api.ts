@@ -1,0 +1,68 @@
+import { readFileSync } from 'node:fs';
+import { expect } from 'vitest';
+import { DEMO_PASSWORD } from './env';
+import { type HttpSession, signedIn } from './http-session';
+
+export const DEMO = {
+  designer: 'designer@sheathwise.example',
+  checker: 'checker@sheathwise.example',
+  approver: 'approver@sheathwise.example',
+  auditor: 'auditor@sheathwise.example',
+  admin: 'admin@sheathwise.example',
+} as const;
+export type DemoRole = keyof typeof DEMO;
+
+export async function demoSessions(): Promise<Record<DemoRole, HttpSession>> {
+  const entries = await Promise.all(Object.entries(DEMO).map(async ([role, email]) => [role, await signedIn(email, DEMO_PASSWORD)] as const));
+  return Object.fromEntries(entries) as Record<DemoRole, HttpSession>;
+}
+
+export const fixtureInputs = (name: string) => JSON.parse(readFileSync(`tests/fixtures/studies/${name}.json`, 'utf8'));
+
+export async function json(res: Response, status?: number) {
+  const body = await res.json();
+  if (status !== undefined) expect(res.status, JSON.stringify(body)).toBe(status);
+  return body;
+}
+
+export const send = (s: HttpSession, method: string, path: string, body?: unknown) =>
+  s.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
+
+/** The demo project and limit set ids. */
+export async function demoIds(s: HttpSession) {
+  const { projects } = await json(await s.fetch('/api/projects'), 200);
+  const { limitSets } = await json(await s.fetch('/api/limit-sets'), 200);
+  return { projectId: projects[0].id as string, limitSetId: limitSets[0].id as string };
+}
+
+let counter = 0;
+const uniqueCode = (prefix: string) => `${prefix}${process.pid % 1000}-${Date.now() % 100000}-${counter++}`;
+
+/** A new study, calculated, with every manual item answered by the designer: ready to submit. */
+export async function readyDraft(designer: HttpSession, fixture = 'fernhollow-cross-bonded', prefix = 'T') {
+  const { projectId, limitSetId } = await demoIds(designer);
+  const created = await json(
+    await send(designer, 'POST', `/api/projects/${projectId}/studies`, { code: uniqueCode(prefix), title: `Test study from ${fixture}`, kind: fixtureInputs(fixture).kind, limitSetId, inputs: fixtureInputs(fixture) }),
+    201,
+  );
+  const revisionId = created.revision.id as string;
+  await json(await send(designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200);
+  const detail = await json(await designer.fetch(`/api/revisions/${revisionId}`), 200);
+  for (const item of detail.checklist.filter((i: { kind: string }) => i.kind === 'manual')) {
+    await json(await send(designer, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(item.itemKey)}`, { answer: 'yes' }), 200);
+  }
+  return { projectId, studyId: created.study.id as string, revisionId };
+}
+
+export async function currentVersion(s: HttpSession, revisionId: string): Promise<number> {
+  return (await json(await s.fetch(`/api/revisions/${revisionId}`), 200)).revision.version;
+}
+
+export async function step(s: HttpSession, revisionId: string, name: string, extra: Record<string, unknown> = {}) {
+  return send(s, 'POST', `/api/revisions/${revisionId}/steps`, { step: name, version: await currentVersion(s, revisionId), ...extra });
+}
+
+/** Drives a ready draft through the named steps, each expected to succeed. */
+export async function drive(sessions: Record<DemoRole, HttpSession>, revisionId: string, steps: Array<[DemoRole, string]>) {
+  for (const [role, name] of steps) await json(await step(sessions[role], revisionId, name, name === 'return' ? { reason: 'Please look again.' } : {}), 200);
+}

@@ -1,0 +1,150 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import path from 'node:path';
+import type { HttpSession } from '../helpers/http-session';
+import { type DemoRole, currentVersion, demoIds, demoSessions, drive, fixtureInputs, json, readyDraft, send } from '../helpers/workflow-api';
+
+// Every endpoint, called by every demo role: the roles allowed succeed, the others get 403.
+// Requests that change state are built per role so that an allowed call has something valid to
+// act on. The last test fails when an endpoint exists that this matrix does not list.
+
+const ROLES: DemoRole[] = ['designer', 'checker', 'approver', 'auditor', 'admin'];
+const READERS: DemoRole[] = ['designer', 'checker', 'approver', 'auditor'];
+const PARTICIPANTS: DemoRole[] = ['designer', 'checker', 'approver'];
+
+interface Fixture {
+  projectId: string;
+  limitSetId: string;
+  issuedStudyId: string;
+  draft: string;
+  draftToWithdraw: string;
+  inCheck: string;
+  inCheckToReturn: string;
+  checkedFailing: string;
+  checkedToReturn: string;
+  failingItemKey: string;
+  remarkId: string;
+  userId: string;
+}
+
+type Call = (f: Fixture, role: DemoRole) => { method: string; path: string; body?: unknown };
+
+const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: Call }> = [
+  { route: 'GET /api/me', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/me' }) },
+  { route: 'GET /api/projects', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/projects' }) },
+  { route: 'GET /api/limit-sets', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/limit-sets' }) },
+  { route: 'GET /api/admin/users', allowed: ['admin'], status: 200, call: () => ({ method: 'GET', path: '/api/admin/users' }) },
+  { route: 'GET /api/projects/[projectId]/studies', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/projects/${f.projectId}/studies?sort=updated&direction=desc` }) },
+  {
+    route: 'POST /api/projects/[projectId]/studies',
+    allowed: ['designer'],
+    status: 201,
+    call: (f, role) => ({ method: 'POST', path: `/api/projects/${f.projectId}/studies`, body: { code: `M-${role}-${Date.now() % 100000}`, title: 'Matrix study', kind: 'bonding', limitSetId: f.limitSetId, inputs: fixtureInputs('fernhollow-cross-bonded') } }),
+  },
+  { route: 'GET /api/studies/[studyId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/studies/${f.issuedStudyId}` }) },
+  { route: 'POST /api/studies/[studyId]/revisions', allowed: ['designer'], status: 201, call: (f) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/revisions` }) },
+  { route: 'GET /api/revisions/[revisionId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}` }) },
+  { route: 'PUT /api/revisions/[revisionId]/inputs', allowed: ['designer'], status: 200, call: (f) => ({ method: 'PUT', path: `/api/revisions/${f.draft}/inputs`, body: { version: -1, inputs: fixtureInputs('fernhollow-cross-bonded') } }) },
+  { route: 'POST /api/revisions/[revisionId]/calculate', allowed: ['designer'], status: 200, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.draft}/calculate` }) },
+  {
+    route: 'POST /api/revisions/[revisionId]/steps',
+    allowed: PARTICIPANTS,
+    status: 200,
+    call: (f, role) =>
+      role === 'designer' ? { method: 'POST', path: `/api/revisions/${f.draftToWithdraw}/steps`, body: { step: 'withdraw', version: -1 } }
+        : role === 'approver' ? { method: 'POST', path: `/api/revisions/${f.checkedToReturn}/steps`, body: { step: 'return', version: -1, reason: 'Standing voltage over the limit.' } }
+          : { method: 'POST', path: `/api/revisions/${f.inCheckToReturn}/steps`, body: { step: 'return', version: -1, reason: 'Matrix: checker returns.' } },
+  },
+  {
+    route: 'PUT /api/revisions/[revisionId]/checklist/[itemKey]',
+    allowed: PARTICIPANTS,
+    status: 200,
+    call: (f, role) =>
+      role === 'designer' ? { method: 'PUT', path: `/api/revisions/${f.draft}/checklist/manual%3Alink-boxes`, body: { answer: 'not-applicable', reason: 'No link boxes in this part.' } }
+        : role === 'checker' ? { method: 'PUT', path: `/api/revisions/${f.inCheck}/checklist/manual%3Alink-boxes`, body: { verdict: 'agree' } }
+          : { method: 'PUT', path: `/api/revisions/${f.checkedFailing}/checklist/${encodeURIComponent(f.failingItemKey)}`, body: { justification: 'Link boxes here are in locked kiosks; accepted by the owner.' } },
+  },
+  { route: 'GET /api/revisions/[revisionId]/remarks', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/remarks` }) },
+  { route: 'POST /api/revisions/[revisionId]/remarks', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/remarks`, body: { body: `A remark from the ${role}.` } }) },
+  { route: 'PATCH /api/remarks/[remarkId]', allowed: PARTICIPANTS, status: 200, call: (f) => ({ method: 'PATCH', path: `/api/remarks/${f.remarkId}`, body: { resolved: true } }) },
+  { route: 'POST /api/revisions/[revisionId]/check-values', allowed: ['checker'], status: 201, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/check-values`, body: { itemKey: 'standing-voltage-normal:LOAD', checkerValue: 22.0 } }) },
+  { route: 'GET /api/audit', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit?pageSize=5' }) },
+  { route: 'GET /api/audit/verify', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/verify' }) },
+  { route: 'GET /api/audit/export', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/export?type=revision.issue' }) },
+  { route: 'POST /api/admin/invitations', allowed: ['admin'], status: 201, call: (_f, role) => ({ method: 'POST', path: '/api/admin/invitations', body: { email: `matrix-${role}-${Date.now()}@sheathwise.example`, name: 'Matrix Invitee' } }) },
+  { route: 'POST /api/admin/projects/[projectId]/members', allowed: ['admin'], status: 201, call: (f) => ({ method: 'POST', path: `/api/admin/projects/${f.projectId}/members`, body: { userId: f.userId, role: 'auditor' } }) },
+  { route: 'DELETE /api/admin/projects/[projectId]/members', allowed: ['admin'], status: 200, call: (f) => ({ method: 'DELETE', path: `/api/admin/projects/${f.projectId}/members`, body: { userId: f.userId, role: 'auditor' } }) },
+  {
+    route: 'POST /api/admin/limit-sets/[limitSetId]/versions',
+    allowed: ['admin'],
+    status: 201,
+    call: (f) => ({ method: 'POST', path: `/api/admin/limit-sets/${f.limitSetId}/versions`, body: { limits: JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')).limits, manualItems: [{ key: 'link-boxes', text: 'Link boxes are lockable and labelled.', basis: 'common practice' }], checkTolerancePct: 2 } }),
+  },
+];
+
+// Public by design: no session needed. Checked by their own tests.
+const PUBLIC = ['GET /api/health', 'POST /api/invitations/accept'];
+
+describe('role × endpoint matrix', () => {
+  let sessions: Record<DemoRole, HttpSession>;
+  let f: Fixture;
+
+  beforeAll(async () => {
+    sessions = await demoSessions();
+    const { projectId, limitSetId } = await demoIds(sessions.designer);
+    const issued = await readyDraft(sessions.designer);
+    await drive(sessions, issued.revisionId, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass'], ['approver', 'issue']]);
+    const draft = (await readyDraft(sessions.designer)).revisionId;
+    const draftToWithdraw = (await readyDraft(sessions.designer)).revisionId;
+    const inCheck = (await readyDraft(sessions.designer)).revisionId;
+    await drive(sessions, inCheck, [['designer', 'submit'], ['checker', 'startCheck']]);
+    const inCheckToReturn = (await readyDraft(sessions.designer)).revisionId;
+    await drive(sessions, inCheckToReturn, [['designer', 'submit'], ['checker', 'startCheck']]);
+    const checkedFailing = (await readyDraft(sessions.designer, 'kestrel-single-point-ecc')).revisionId;
+    await drive(sessions, checkedFailing, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass']]);
+    const checkedToReturn = (await readyDraft(sessions.designer)).revisionId;
+    await drive(sessions, checkedToReturn, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass']]);
+    const failing = (await json(await sessions.approver.fetch(`/api/revisions/${checkedFailing}`), 200)).checklist.find((i: { status: string }) => i.status === 'fail');
+    const remark = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/remarks`, { body: 'Please state the earthing resistance source.' }), 201);
+    const me = await json(await sessions.designer.fetch('/api/me'), 200);
+    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, userId: me.id };
+  });
+
+  for (const entry of matrix) {
+    it(entry.route, async () => {
+      // Refused roles first: a refusal must change nothing the allowed call relies on.
+      const order = [...ROLES.filter((r) => !entry.allowed.includes(r)), ...ROLES.filter((r) => entry.allowed.includes(r))];
+      for (const role of order) {
+        const { method, path, body } = entry.call(f, role);
+        const revisionId = /\/api\/revisions\/([^/]+)/.exec(path)?.[1];
+        const withVersion = body && typeof body === 'object' && (body as { version?: number }).version === -1 && revisionId
+          ? { ...body, version: await currentVersion(sessions.designer, revisionId) }
+          : body;
+        const res = await send(sessions[role], method, path, withVersion);
+        if (entry.allowed.includes(role)) expect(res.status, `${role}: ${await res.clone().text()}`).toBe(entry.status);
+        else {
+          expect(res.status, `${role} should be refused`).toBe(403);
+          expect((await res.json()).error).toBe('Forbidden');
+        }
+      }
+    });
+  }
+
+  it('lists every endpoint under src/pages/api', () => {
+    const routes: string[] = [];
+    const walk = (dir: string) => {
+      for (const name of readdirSync(dir)) {
+        const file = path.join(dir, name);
+        if (statSync(file).isDirectory()) walk(file);
+        else if (file.endsWith('.ts')) {
+          const route = '/' + path.relative('src/pages', file).replace(/\\/g, '/').replace(/\.ts$/, '').replace(/\/index$/, '');
+          for (const [, method] of readFileSync(file, 'utf8').matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)) routes.push(`${method} ${route}`);
+        }
+      }
+    };
+    walk('src/pages/api');
+    const listed = new Set([...matrix.map((m) => m.route), ...PUBLIC]);
+    expect(routes.filter((r) => !listed.has(r))).toEqual([]);
+    expect(routes.length).toBeGreaterThanOrEqual(matrix.length);
+  });
+});
