@@ -1,10 +1,11 @@
 import type { ChecklistItem, StudyResults } from '../src/lib/calc';
 import type { LimitSet } from '../src/lib/schemas/limit-set.schema';
+import { formatQuantity } from '../src/lib/format';
 
 const CAUTION =
   'Caution: these results support, and do not replace, the judgement of a competent engineer, the owner\'s standards and local regulations.';
 
-const fmt = (v: number, unit: string) => `${v >= 100 ? v.toFixed(0) : v >= 1 ? v.toFixed(2) : v.toPrecision(3)}${unit ? ` ${unit}` : ''}`;
+const fmt = formatQuantity;
 
 /** A readable plain-text summary: worst values, cross-checks, checklist verdicts. */
 export function formatSummary(title: string, results: StudyResults, checklist: ChecklistItem[], limits: LimitSet): string {

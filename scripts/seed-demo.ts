@@ -16,6 +16,7 @@ import { updateChecklistItem } from '../src/lib/studies/revision-items.service';
 import { applyStep } from '../src/lib/workflow/revision-workflow.server';
 import { revisionDetail } from '../src/lib/db/revisions.repo';
 import { demoManualItems } from './demo-manual-items';
+import { storeIssuedRecord } from '../src/lib/records/records.service';
 
 export const DEMO_PASSWORD = 'sheathwise-demo';
 
@@ -48,7 +49,7 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
     ids[u.role] = user.id;
     if (u.role !== 'admin') await db.insert(memberships).values({ projectId: project.id, userId: user.id, role: u.role });
   }
-  const s: AppServices = { db, pool, mail: null, appUrl: '' };
+  const s: AppServices = { db, pool, jobs: null, appUrl: '' };
   const as = async (role: string) => (await loadSessionUser(db, ids[role]))!;
   const [designer, checker, approver, admin] = await Promise.all(['designer', 'checker', 'approver', 'admin'].map(as));
 
@@ -76,10 +77,13 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
   // Issued, with an earlier revision it superseded.
   const main1 = await draftCalculated('B01', 'Circuit 1 cross-bonded route', 'bonding', 'fernhollow-cross-bonded');
   for (const [who, name] of [[designer, 'submit'], [checker, 'startCheck'], [checker, 'pass'], [approver, 'issue']] as const) await step(who, main1, name);
+  // The seed runs without the job queue, so it renders the issued records itself.
+  await storeIssuedRecord(s, main1);
   const main2 = (await startNewRevision(s, designer, (await revisionDetail(db, main1)).study.id)).id;
   await calculateRevision(s, designer, main2);
   await answerAll(main2);
   for (const [who, name] of [[designer, 'submit'], [checker, 'startCheck'], [checker, 'pass'], [approver, 'issue']] as const) await step(who, main2, name);
+  await storeIssuedRecord(s, main2);
 
   // Checked, waiting for approval (its standing voltage fails the demo limit: the approver must justify or return it).
   const entry = await draftCalculated('B02', 'Kestrel Bay substation entry, single-point with ECC', 'bonding', 'kestrel-single-point-ecc');

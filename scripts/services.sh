@@ -36,6 +36,11 @@ ensure_postgres_binaries() {
   PG_BIN="$(pg_bin_dir)"
 }
 
+# The record's plot is rendered to PNG with a machine font (DejaVu Sans).
+ensure_fonts() {
+  [ -f /usr/share/fonts/truetype/dejavu/DejaVuSans.ttf ] || apt_install fonts-dejavu-core
+}
+
 ensure_chromium() {
   [ -x /usr/bin/chromium ] || apt_install chromium
 }

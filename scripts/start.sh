@@ -13,6 +13,7 @@ trap 'stop_started; exit 0' INT TERM
 trap 'stop_started' EXIT
 
 ensure_node_modules
+ensure_fonts
 start_postgres "$ROOT/.data/pg" "$PG_PORT" sheathwise
 migrate_and_seed --seed
 start_maildev "$SMTP_PORT_DEV" "$MAIL_WEB_PORT"

@@ -16,6 +16,7 @@ trap cleanup EXIT
 trap 'exit 130' INT TERM
 
 ensure_node_modules
+ensure_fonts
 (cd "$ROOT" && node scripts/typecheck.mjs)
 ensure_chromium
 start_postgres "$TMP_PG/data" "$PG_PORT" sheathwise_test

@@ -12,7 +12,7 @@ export function canonicalJson(value: unknown): string {
   );
 }
 
-export const sha256Hex = (text: string): string => createHash('sha256').update(text).digest('hex');
+export const sha256Hex = (data: string | Uint8Array): string => createHash('sha256').update(data).digest('hex');
 
 /** The hash that ties results to the inputs they were computed from. */
 export const inputsHash = (inputs: unknown): string => sha256Hex(canonicalJson(inputs));

@@ -1,12 +1,12 @@
 import type pg from 'pg';
 import type { Database } from './db/client';
-import type { MailQueue } from './mail/mail-queue';
+import type { JobQueue } from './jobs/job-queue';
 
 /** What the application services need: the server builds one set, tests and seeds their own. */
 export interface AppServices {
   db: Database;
   pool: pg.Pool;
-  /** null: queue no e-mail (the demo seed). */
-  mail: MailQueue | null;
+  /** null: queue no jobs, so no e-mail and no record rendering (the demo seed). */
+  jobs: JobQueue | null;
   appUrl: string;
 }

@@ -3,7 +3,8 @@ import pg from 'pg';
 import { MailDev } from 'maildev';
 import { createDatabase } from '../../src/lib/db/client';
 import { migrateDatabase } from '../../src/lib/db/migrate';
-import { MailQueue } from '../../src/lib/mail/mail-queue';
+import { JobQueue } from '../../src/lib/jobs/job-queue';
+import { MAIL_QUEUE, mailDelivery } from '../../src/lib/mail/mail-delivery';
 import { inTransaction } from '../../src/lib/db/transaction';
 import { testEnv } from '../helpers/env';
 import { caughtMail, waitForMail } from '../helpers/maildev-client';
@@ -25,7 +26,7 @@ async function startMaildev(): Promise<{ close: () => Promise<void> }> {
 describe('e-mail survives an SMTP outage', () => {
   const admin = new pg.Client({ connectionString: testEnv().databaseUrl });
   let url: string;
-  let queue: MailQueue;
+  let queue: JobQueue;
   let handle: ReturnType<typeof createDatabase>;
 
   beforeAll(async () => {
@@ -37,7 +38,7 @@ describe('e-mail survives an SMTP outage', () => {
     url = u.toString();
     handle = createDatabase(url, 3);
     await migrateDatabase(handle.db);
-    queue = await MailQueue.start(url, { retryLimit: 20, retryDelay: 1, retryBackoff: false });
+    queue = await JobQueue.start(url, [MAIL_QUEUE], { retryLimit: 20, retryDelay: 1, retryBackoff: false });
   });
 
   afterAll(async () => {
@@ -54,9 +55,9 @@ describe('e-mail survives an SMTP outage', () => {
   });
 
   it('queues while SMTP is down, delivers once when it returns', async () => {
-    await queue.work(handle.db, { host: '127.0.0.1', port: SMTP_PORT, from: 'Sheathwise <test@sheathwise.invalid>' }, 0.5);
+    await queue.work(MAIL_QUEUE, mailDelivery(handle.db, { host: '127.0.0.1', port: SMTP_PORT, from: 'Sheathwise <test@sheathwise.invalid>' }), 0.5);
     await inTransaction(handle.pool, (_tx, sqlExecutor) =>
-      queue.enqueue(sqlExecutor, [{ to: 'checker@sheathwise.example', subject: 'outage probe', text: 'sent while SMTP was down' }]),
+      queue.enqueue(sqlExecutor, MAIL_QUEUE, [{ to: 'checker@sheathwise.example', subject: 'outage probe', text: 'sent while SMTP was down' }]),
     );
     // Let the worker try and fail at least twice against the closed port.
     await new Promise((r) => setTimeout(r, 3000));
@@ -77,7 +78,7 @@ describe('e-mail survives an SMTP outage', () => {
   it('queues nothing when the transaction that would send it rolls back', async () => {
     await expect(
       inTransaction(handle.pool, async (_tx, sqlExecutor) => {
-        await queue.enqueue(sqlExecutor, [{ to: 'a@sheathwise.example', subject: 'rolled back', text: 'never' }]);
+        await queue.enqueue(sqlExecutor, MAIL_QUEUE, [{ to: 'a@sheathwise.example', subject: 'rolled back', text: 'never' }]);
         throw new Error('the change failed');
       }),
     ).rejects.toThrow('the change failed');

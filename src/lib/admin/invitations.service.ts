@@ -10,6 +10,7 @@ import { appendAudit } from '../audit/audit-log';
 import { sha256Hex } from '../canonical-json';
 import { hashPassword } from '../auth/passwords';
 import { invitationMessage } from '../mail/workflow-messages';
+import { MAIL_QUEUE } from '../mail/mail-delivery';
 import type { invitationSchema } from '../schemas/revision-actions.schema';
 
 const VALID_HOURS = 72;
@@ -23,7 +24,7 @@ export async function inviteUser(s: AppServices, admin: SessionUser, body: z.out
   return inTransaction(s.pool, async (tx, sqlExecutor) => {
     const [row] = await tx.insert(invitations).values({ email: body.email, name: body.name, isAdmin: body.isAdmin, tokenHash: sha256Hex(token), expiresAt, invitedBy: admin.id }).returning({ id: invitations.id });
     await appendAudit(tx, { actorId: admin.id, type: 'user.invited', detail: { email: body.email, name: body.name, isAdmin: body.isAdmin } });
-    await s.mail?.enqueue(sqlExecutor, [invitationMessage(s.appUrl, body.email, body.name, token, admin.name, expiresAt)]);
+    await s.jobs?.enqueue(sqlExecutor, MAIL_QUEUE, [invitationMessage(s.appUrl, body.email, body.name, token, admin.name, expiresAt)]);
     return { id: row.id, email: body.email, expiresAt };
   });
 }

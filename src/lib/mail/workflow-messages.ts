@@ -1,4 +1,4 @@
-import type { OutgoingMail } from './mail-queue';
+import type { OutgoingMail } from './mail-delivery';
 
 export interface MessageContext {
   appUrl: string;

@@ -1,6 +1,8 @@
 import { serverConfig } from '../config.server';
 import { createDatabase } from '../db/client';
-import { MailQueue } from '../mail/mail-queue';
+import { JobQueue } from '../jobs/job-queue';
+import { MAIL_QUEUE, mailDelivery } from '../mail/mail-delivery';
+import { RECORD_QUEUE, storeIssuedRecord } from '../records/records.service';
 import type { AppServices } from '../services';
 
 let shared: ReturnType<typeof createDatabase> | undefined;
@@ -12,14 +14,15 @@ export function database() {
   return shared.db;
 }
 
-/** Database, pool and mail queue; the first call also starts the mail worker in this process. */
+/** Database, pool and job queue; the first call also starts the job workers in this process. */
 export function services(): Promise<AppServices> {
   started ??= (async () => {
     const cfg = serverConfig();
     database();
-    const mail = await MailQueue.start(cfg.DATABASE_URL);
-    await mail.work(shared!.db, { host: cfg.SMTP_HOST, port: cfg.SMTP_PORT, from: cfg.MAIL_FROM }, cfg.MAIL_POLL_SECONDS);
-    return { db: shared!.db, pool: shared!.pool, mail, appUrl: cfg.APP_URL };
+    const jobs = await JobQueue.start(cfg.DATABASE_URL, [MAIL_QUEUE, RECORD_QUEUE]);
+    await jobs.work(MAIL_QUEUE, mailDelivery(shared!.db, { host: cfg.SMTP_HOST, port: cfg.SMTP_PORT, from: cfg.MAIL_FROM }), cfg.MAIL_POLL_SECONDS);
+    await jobs.work<{ revisionId: string }>(RECORD_QUEUE, (_id, job) => storeIssuedRecord(shared!, job.revisionId), cfg.MAIL_POLL_SECONDS);
+    return { db: shared!.db, pool: shared!.pool, jobs, appUrl: cfg.APP_URL };
   })();
   return started;
 }

@@ -9,6 +9,7 @@ import { appendAudit } from '../audit/audit-log';
 import { loadRevisionScope, membersWithRole } from '../db/revisions.repo';
 import { editableStates } from '../workflow/revision.machine';
 import { workflowMessage } from '../mail/workflow-messages';
+import { MAIL_QUEUE } from '../mail/mail-delivery';
 import type { checkValueSchema, checklistUpdateSchema, remarkSchema } from '../schemas/revision-actions.schema';
 
 const CLOSED = new Set(['issued', 'withdrawn', 'superseded']);
@@ -53,11 +54,11 @@ export async function addRemark(s: AppServices, actor: SessionUser, revisionId: 
   return inTransaction(s.pool, async (tx, sqlExecutor) => {
     const [remark] = await tx.insert(remarks).values({ revisionId, authorId: actor.id, body: body.body, itemKey: body.itemKey ?? null, field: body.field ?? null, parentId: body.parentId ?? null }).returning();
     await appendAudit(tx, { actorId: actor.id, type: 'remark.added', projectId: project.id, studyId: study.id, revisionId, detail: { remarkId: remark.id, itemKey: body.itemKey ?? null, field: body.field ?? null, body: body.body } });
-    if (s.mail) {
+    if (s.jobs) {
       const otherIds = actor.id === revision.designerId ? [revision.checkerId, revision.approverId] : [revision.designerId];
       const people = (await membersWithRole(s.db, project.id, ['designer', 'checker', 'approver'])).filter((p) => otherIds.includes(p.id));
       const c = { appUrl: s.appUrl, projectName: project.name, studyTitle: study.title, revisionNumber: revision.number, revisionId, actorName: actor.name, reason: body.body };
-      await s.mail.enqueue(sqlExecutor, people.map((p) => workflowMessage('remark', c, p.email)));
+      await s.jobs.enqueue(sqlExecutor, MAIL_QUEUE, people.map((p) => workflowMessage('remark', c, p.email)));
     }
     return remark;
   });

@@ -8,7 +8,8 @@ import { inTransaction } from '../db/transaction';
 import { appendAudit } from '../audit/audit-log';
 import { loadRevisionScope, membersWithRole } from '../db/revisions.repo';
 import { workflowMessage, type MessageContext } from '../mail/workflow-messages';
-import type { OutgoingMail } from '../mail/mail-queue';
+import { MAIL_QUEUE, type OutgoingMail } from '../mail/mail-delivery';
+import { RECORD_QUEUE } from '../records/records.service';
 import { type UserEvent, type WorkflowRole, refusal, revisionMachine, revisionSnapshot } from './revision.machine';
 import { revisionFacts } from './revision-facts';
 
@@ -86,7 +87,9 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
       }
     }
 
-    if (s.mail) {
+    if (to === 'issued') await s.jobs?.enqueue(sqlExecutor, RECORD_QUEUE, [{ revisionId }]);
+
+    if (s.jobs) {
       const messages = await notifications(s, req.step, {
         appUrl: s.appUrl,
         projectName: project.name,
@@ -96,7 +99,7 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
         actorName: actor.name,
         reason: req.reason,
       }, project.id, revision.designerId, actor.id);
-      await s.mail.enqueue(sqlExecutor, messages);
+      await s.jobs.enqueue(sqlExecutor, MAIL_QUEUE, messages);
     }
     return updated;
   });

@@ -4,3 +4,4 @@ export * from './limit-sets';
 export * from './studies';
 export * from './audit';
 export * from './invitations';
+export * from './records';

@@ -1,0 +1,45 @@
+import PgBoss from 'pg-boss';
+import type { SqlExecutor } from '../db/transaction';
+
+export interface RetryPolicy {
+  retryLimit: number;
+  retryDelay: number;
+  retryBackoff: boolean;
+}
+
+// Enough attempts to ride out an outage of several hours with back-off.
+const DEFAULT_RETRY: RetryPolicy = { retryLimit: 30, retryDelay: 10, retryBackoff: true };
+
+/**
+ * Background jobs in PostgreSQL (pg-boss): queued on the caller's transaction, so a job exists
+ * only if the change that caused it committed, and retried until its handler succeeds.
+ */
+export class JobQueue {
+  private constructor(
+    private readonly boss: PgBoss,
+    private readonly retry: RetryPolicy,
+  ) {}
+
+  static async start(databaseUrl: string, queues: string[], retry: RetryPolicy = DEFAULT_RETRY): Promise<JobQueue> {
+    const boss = new PgBoss({ connectionString: databaseUrl, max: 3, schema: 'pgboss' });
+    boss.on('error', (err) => console.error('[jobs]', err.message));
+    await boss.start();
+    for (const q of queues) await boss.createQueue(q);
+    return new JobQueue(boss, retry);
+  }
+
+  async enqueue(tx: SqlExecutor, queue: string, payloads: object[]): Promise<void> {
+    for (const payload of payloads) await this.boss.send(queue, payload, { ...this.retry, db: tx as PgBoss.Db });
+  }
+
+  /** Runs `handle` for each job of a queue; a handler that throws leaves the job to be retried. */
+  async work<T extends object>(queue: string, handle: (jobId: string, data: T) => Promise<void>, pollingIntervalSeconds = 1): Promise<void> {
+    await this.boss.work<T>(queue, { pollingIntervalSeconds, batchSize: 5 }, async (jobs) => {
+      for (const job of jobs) await handle(job.id, job.data);
+    });
+  }
+
+  async stop(): Promise<void> {
+    await this.boss.stop({ graceful: true, timeout: 5000, wait: true });
+  }
+}

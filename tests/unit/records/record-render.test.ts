@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest';
+import { performance } from 'node:perf_hooks';
+import { readFileSync } from 'node:fs';
+import { calculateStudy, evaluateCompliance } from '../../../src/lib/calc';
+import { limitSetSchema } from '../../../src/lib/schemas/limit-set.schema';
+import { checklistRows } from '../../../src/lib/studies/checklist-rows';
+import { renderRecord } from '../../../src/lib/records/record-document';
+import type { RecordData } from '../../../src/lib/records/record-data';
+import { formatQuantity } from '../../../src/lib/format';
+import { crossBondedRoute } from '../../../bench/reference-routes';
+import { hasCell, readDocx } from '../../helpers/docx-text';
+
+const limits = limitSetSchema.parse(JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')));
+
+function recordData(study: ReturnType<typeof crossBondedRoute>, draft: boolean): RecordData {
+  const results = calculateStudy(study);
+  const checklist = checklistRows('r', evaluateCompliance(study, results, limits), [], []).map((row, i) => ({ ...row, id: `c${i}` }));
+  return {
+    draft,
+    project: { code: 'BENCH', name: 'Reference route (invented)' },
+    study: { code: 'L-90', title: 'Large reference route', kind: 'bonding' },
+    revision: { number: 1, state: draft ? 'draft' : 'issued', createdAt: new Date('2026-01-05'), issuedAt: draft ? null : new Date('2026-02-01'), engineVersion: results.engineVersion, inputsHash: 'f'.repeat(64) } as RecordData['revision'],
+    limitSet: { name: limits.name, version: 1 },
+    inputs: study,
+    results,
+    checklist,
+    remarks: [],
+    checkValues: [],
+    signOffs: [],
+  };
+}
+
+describe('record rendering', () => {
+  it('renders the large reference route in under 2 s, with its values, plot and verdicts', async () => {
+    const study = crossBondedRoute({ circuits: 2, majorSections: 30, withEcc: true });
+    const data = recordData(study, false);
+    await renderRecord(data); // warm-up: templates and fonts load once per process
+    const t0 = performance.now();
+    const bytes = await renderRecord(data);
+    const ms = performance.now() - t0;
+    console.log(`record for the large reference route: ${ms.toFixed(0)} ms, ${(bytes.length / 1024).toFixed(0)} KiB`);
+    expect(ms).toBeLessThan(2000);
+
+    const doc = readDocx(bytes);
+    expect(doc.media).toHaveLength(1); // the along-route plot
+    const worst = data.results!.kind === 'bonding' ? data.results!.worst.find((w) => w.quantity === 'standing-voltage-normal')! : null;
+    expect(hasCell(doc.bodyText, formatQuantity(worst!.value, 'V'))).toBe(true);
+    expect(hasCell(doc.bodyText, 'PASS')).toBe(true);
+    expect(doc.headerText).toContain('Issued record');
+  });
+
+  it('marks a draft on every page through the page header', async () => {
+    const doc = readDocx(await renderRecord(recordData(crossBondedRoute({ circuits: 1, majorSections: 1, withEcc: false }), true)));
+    expect(doc.headerText).toContain('DRAFT: not issued');
+    expect(doc.documentXml).toContain('w:headerReference');
+    expect(doc.bodyText).toContain('not yet signed');
+  });
+});
