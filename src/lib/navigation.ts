@@ -10,6 +10,7 @@ export function navigationFor(user: SessionUser): NavItem[] {
   const roles = allRoles(user);
   const items: NavItem[] = [{ href: '/', label: 'My desk' }];
   if (roles.some((r) => r !== 'admin')) items.push({ href: '/projects', label: 'Projects' });
+  if (roles.includes('auditor')) items.push({ href: '/audit', label: 'Audit trail' });
   if (roles.includes('admin')) items.push({ href: '/admin', label: 'Administration' });
   return items;
 }

@@ -29,12 +29,12 @@ describe('sign in and out in Chromium', () => {
     expect(await page.getByRole('alert').textContent()).toContain('do not match an account');
   });
 
-  it('signs in through the form and shows the home page in Noto Sans', async () => {
+  it('signs in through the form and shows the home page with the queue, in Noto Sans', async () => {
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(`${appUrl}/`);
     await expect(page.getByTestId('whoami').textContent()).resolves.toContain('Ada Okonkwo');
-    await expect(page.getByTestId('empty-queue').isVisible()).resolves.toBe(true);
+    await page.getByTestId('queue-designer').waitFor();
     await page.evaluate(() => document.fonts.ready);
     // check() alone is true when no face is declared at all, so look for a loaded face.
     const fontLoaded = await page.evaluate(() =>

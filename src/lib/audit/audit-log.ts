@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
 import type { Database } from '../db/client';
-import { auditEvents, type AuditEvent } from '../db/schema';
+import { auditEvents, users, type AuditEvent } from '../db/schema';
 import { canonicalJson, sha256Hex } from '../canonical-json';
 
 const GENESIS = 'genesis';
@@ -100,8 +100,25 @@ function whereOf(f: AuditFilter): SQL | undefined {
 export async function listAuditEvents(db: Database, filter: AuditFilter, page: number, pageSize: number) {
   const where = whereOf(filter);
   const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(auditEvents).where(where);
-  const events = await db.select().from(auditEvents).where(where).orderBy(desc(auditEvents.id)).limit(pageSize).offset(page * pageSize);
-  return { total, events };
+  const rows = await db
+    .select({ event: auditEvents, actorName: users.name })
+    .from(auditEvents)
+    .leftJoin(users, eq(users.id, auditEvents.actorId))
+    .where(where)
+    .orderBy(desc(auditEvents.id))
+    .limit(pageSize)
+    .offset(page * pageSize);
+  return { total, events: rows.map((r) => ({ ...r.event, actorName: r.actorName })) };
+}
+
+/** The people who appear in the trail, for the person filter. */
+export async function auditActors(db: Database) {
+  return db.selectDistinct({ id: users.id, name: users.name }).from(auditEvents).innerJoin(users, eq(users.id, auditEvents.actorId)).orderBy(users.name);
+}
+
+/** The event types that appear in the trail, for the type filter. */
+export async function auditTypes(db: Database): Promise<string[]> {
+  return (await db.selectDistinct({ type: auditEvents.type }).from(auditEvents).orderBy(auditEvents.type)).map((r) => r.type);
 }
 
 /** Every matching event as CSV, oldest first (RFC 4180 quoting). */

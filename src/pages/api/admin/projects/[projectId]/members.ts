@@ -4,6 +4,12 @@ import { services } from '../../../../../lib/server/services.server';
 import { addMember, removeMember } from '../../../../../lib/admin/memberships.service';
 import { membershipSchema } from '../../../../../lib/schemas/revision-actions.schema';
 import { assertId } from '../../../../../lib/db/revisions.repo';
+import { listMembers } from '../../../../../lib/db/projects.repo';
+
+export const GET = endpoint(async ({ locals, params }) => {
+  authorize(locals.user, { admin: true });
+  return Response.json({ members: await listMembers((await services()).db, assertId(params.projectId, 'project')) });
+});
 
 export const POST = endpoint(async ({ locals, params, request }) => {
   const admin = authorize(locals.user, { admin: true });

@@ -1,0 +1,66 @@
+import { useState } from 'react';
+import { useMutation, useQuery } from '@tanstack/react-query';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { api } from '../../lib/queries/api-client';
+import { auditFacetsQuery, auditQuery, type AuditFilters, type AuditRow } from '../../lib/queries/audit.queries';
+import { withQueryClient } from '../ui/with-query-client';
+import { Busy, Button, Empty, ErrorNote, formatDate } from '../ui/parts';
+
+const column = createColumnHelper<AuditRow>();
+const columns = [
+  column.accessor('id', { header: 'No.' }),
+  column.accessor('at', { header: 'When (UTC)', cell: (c) => formatDate(c.getValue()) }),
+  column.accessor('actorName', { header: 'Who', cell: (c) => c.getValue() ?? 'the system' }),
+  column.accessor('type', { header: 'What' }),
+  column.accessor('revisionId', { header: 'Revision', cell: (c) => (c.getValue() ? <a className="text-copper underline" href={`/revisions/${c.getValue()}`}>open</a> : '—') }),
+  column.accessor('detail', { header: 'Detail', cell: (c) => <code className="block max-w-md truncate text-xs" title={JSON.stringify(c.getValue())}>{JSON.stringify(c.getValue())}</code> }),
+];
+
+function AuditBrowser() {
+  const [filters, setFilters] = useState<AuditFilters>({});
+  const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 20 });
+  const facets = useQuery(auditFacetsQuery());
+  const { data, isPending, error } = useQuery(auditQuery(filters, pagination.pageIndex, pagination.pageSize));
+  const verify = useMutation({ mutationFn: () => api<{ ok: boolean; checked: number; firstBroken?: { id: number; reason: string } }>('/api/audit/verify') });
+  const table = useReactTable({ data: data?.events ?? [], columns, getCoreRowModel: getCoreRowModel(), manualPagination: true, rowCount: data?.total ?? 0, state: { pagination }, onPaginationChange: setPagination });
+  const set = (k: keyof AuditFilters, v: string) => {
+    setFilters((f) => ({ ...f, [k]: v || undefined }));
+    setPagination((p) => ({ ...p, pageIndex: 0 }));
+  };
+  const exportHref = `/api/audit/export?${new URLSearchParams(Object.entries(filters).filter(([, v]) => v) as Array<[string, string]>)}`;
+  const field = 'ml-1 rounded border border-rule bg-panel px-1 py-0.5';
+
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-center gap-3 rounded border border-rule bg-panel p-3">
+        <Button onClick={() => verify.mutate()} disabled={verify.isPending}>{verify.isPending ? 'Verifying…' : 'Verify the chain'}</Button>
+        {verify.data && (verify.data.ok
+          ? <span className="font-semibold text-pass" data-testid="chain-result">Chain intact: {verify.data.checked} events verified.</span>
+          : <span className="font-semibold text-fail" data-testid="chain-result">Broken at event {verify.data.firstBroken!.id}: {verify.data.firstBroken!.reason}.</span>)}
+        <a className="ml-auto text-sm text-copper underline" href={exportHref}>Export these events as CSV</a>
+      </div>
+      <div className="flex flex-wrap gap-3 text-sm">
+        <label>What<select aria-label="Event type" className={field} onChange={(e) => set('type', e.target.value)}><option value="">any</option>{facets.data?.types.map((t) => <option key={t}>{t}</option>)}</select></label>
+        <label>Who<select aria-label="Person" className={field} onChange={(e) => set('actorId', e.target.value)}><option value="">anyone</option>{facets.data?.people.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}</select></label>
+        <label>Revision id<input aria-label="Revision id" className={field} onChange={(e) => set('revisionId', e.target.value.trim())} /></label>
+        <label>From<input aria-label="From date" type="date" className={field} onChange={(e) => set('from', e.target.value)} /></label>
+        <label>To<input aria-label="To date" type="date" className={field} onChange={(e) => set('to', e.target.value ? `${e.target.value}T23:59:59Z` : '')} /></label>
+      </div>
+      {error ? <ErrorNote error={error} /> : isPending ? <Busy label="Loading events…" /> : data.total === 0 ? <Empty>No event matches these filters.</Empty> : (
+        <>
+          <table className="w-full rounded border border-rule bg-panel text-sm" data-testid="audit-table">
+            <thead className="bg-copper-light text-left">{table.getHeaderGroups().map((g) => <tr key={g.id}>{g.headers.map((h) => <th key={h.id} className="px-2 py-1">{flexRender(h.column.columnDef.header, h.getContext())}</th>)}</tr>)}</thead>
+            <tbody>{table.getRowModel().rows.map((r) => <tr key={r.id} className="border-t border-rule">{r.getVisibleCells().map((c) => <td key={c.id} className="px-2 py-1">{flexRender(c.column.columnDef.cell, c.getContext())}</td>)}</tr>)}</tbody>
+          </table>
+          <div className="flex items-center gap-2 text-sm">
+            <Button tone="plain" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</Button>
+            <span>Page {pagination.pageIndex + 1} of {table.getPageCount()} ({data.total} events)</span>
+            <Button tone="plain" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>Next</Button>
+          </div>
+        </>
+      )}
+    </div>
+  );
+}
+
+export default withQueryClient(AuditBrowser);

@@ -1,0 +1,99 @@
+import { useState } from 'react';
+import type { RevisionDetail } from '../../lib/queries/revisions.queries';
+import type { ChecklistRow } from '../../lib/db/schema';
+import { formatQuantity } from '../../lib/format';
+import { Button, Empty, ErrorNote } from '../ui/parts';
+import { useRevisionAction } from './use-revision-action';
+
+type Mode = 'answer' | 'verdict' | 'justify' | 'read';
+
+/** The checklist; what a person can do on it depends on their part in this revision. */
+export default function ChecklistTab({ detail, userId, roles }: { detail: RevisionDetail; userId: string; roles: string[] }) {
+  const r = detail.revision;
+  const mode: Mode =
+    ['draft', 'returned'].includes(r.state) && r.designerId === userId ? 'answer'
+      : r.state === 'in_check' && r.checkerId === userId ? 'verdict'
+        : r.state === 'checked' && roles.includes('approver') && userId !== r.designerId && userId !== r.checkerId ? 'justify'
+          : 'read';
+  const update = useRevisionAction(r.id, (v: { key: string; body: unknown }) => ({ path: `/api/revisions/${r.id}/checklist/${encodeURIComponent(v.key)}`, method: 'PUT', body: v.body }));
+  if (!detail.checklist.length) return <Empty>The checklist appears once the revision is calculated.</Empty>;
+  const computed = detail.checklist.filter((i) => i.kind === 'computed');
+  const manual = detail.checklist.filter((i) => i.kind === 'manual');
+  return (
+    <div className="space-y-4">
+      {mode === 'verdict' && <p className="text-sm text-ink-soft">Check worksheet: record agree or query for each item; raise a remark for each query.</p>}
+      {mode === 'justify' && <p className="text-sm text-ink-soft">Approval: every failing item needs your justification before the revision can be issued, or return it.</p>}
+      <ErrorNote error={update.error} />
+      <table className="w-full text-sm" data-testid="checklist">
+        <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Criterion</th><th className="px-2 py-1">Case</th><th className="px-2 py-1">Value</th><th className="px-2 py-1">Limit</th><th className="px-2 py-1">Margin</th><th className="px-2 py-1">Verdict</th><th className="px-2 py-1">Source</th><th className="px-2 py-1">Review</th></tr></thead>
+        <tbody>
+          {computed.map((i) => (
+            <tr key={i.id} className="border-t border-rule align-top" data-testid={`item-${i.itemKey}`}>
+              <td className="px-2 py-1">{i.title}<div className="text-xs text-ink-soft">{i.location}</div></td>
+              <td className="px-2 py-1">{i.caseId}</td>
+              <td className="px-2 py-1 font-mono">{i.value === null ? '—' : formatQuantity(i.value, i.unit)}</td>
+              <td className="px-2 py-1 font-mono">{i.limitValue === null ? '—' : formatQuantity(i.limitValue, i.unit)}</td>
+              <td className="px-2 py-1 font-mono">{i.marginPct === null ? '—' : `${i.marginPct.toFixed(1)} %`}</td>
+              <td className={`px-2 py-1 font-semibold ${i.status === 'pass' ? 'text-pass' : i.status === 'fail' ? 'text-fail' : 'text-caution'}`}>{i.status === 'no-limit' ? 'no limit' : i.status.toUpperCase()}</td>
+              <td className="px-2 py-1 text-xs">{i.source}</td>
+              <td className="px-2 py-1"><Review item={i} mode={mode} onSave={(body) => update.mutate({ key: i.itemKey, body })} /></td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <h3 className="font-semibold">Questions answered by people</h3>
+      <table className="w-full text-sm" data-testid="manual-items">
+        <tbody>
+          {manual.map((i) => (
+            <tr key={i.id} className="border-t border-rule align-top" data-testid={`item-${i.itemKey}`}>
+              <td className="px-2 py-1">{i.title}<div className="text-xs text-ink-soft">basis: {i.source}</div></td>
+              <td className="px-2 py-1">{mode === 'answer' ? <ManualAnswer item={i} onSave={(body) => update.mutate({ key: i.itemKey, body })} /> : <span>{i.answer ?? 'not answered'}{i.answerReason ? `: ${i.answerReason}` : ''}</span>}</td>
+              <td className="px-2 py-1"><Review item={i} mode={mode} onSave={(body) => update.mutate({ key: i.itemKey, body })} /></td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function Review({ item, mode, onSave }: { item: ChecklistRow; mode: Mode; onSave: (body: unknown) => void }) {
+  const [text, setText] = useState('');
+  if (mode === 'verdict') {
+    return (
+      <div className="flex gap-1">
+        <Button tone={item.checkerVerdict === 'agree' ? 'primary' : 'plain'} onClick={() => onSave({ verdict: 'agree' })}>Agree</Button>
+        <Button tone={item.checkerVerdict === 'query' ? 'danger' : 'plain'} onClick={() => onSave({ verdict: 'query' })}>Query</Button>
+      </div>
+    );
+  }
+  const failing = item.status === 'fail' || item.answer === 'no';
+  if (mode === 'justify' && failing && !item.justification) {
+    return (
+      <div className="space-y-1">
+        <textarea aria-label={`Justification for ${item.itemKey}`} className="w-56 rounded border border-rule px-1 text-xs" rows={2} value={text} onChange={(e) => setText(e.target.value)} />
+        <Button onClick={() => onSave({ justification: text })}>Record justification</Button>
+      </div>
+    );
+  }
+  return (
+    <span className="text-xs">
+      {item.checkerVerdict ? `checker: ${item.checkerVerdict}` : ''}
+      {item.justification ? ` justified: ${item.justification}` : ''}
+    </span>
+  );
+}
+
+function ManualAnswer({ item, onSave }: { item: ChecklistRow; onSave: (body: unknown) => void }) {
+  const [reason, setReason] = useState(item.answerReason ?? '');
+  return (
+    <div className="flex flex-wrap items-center gap-1">
+      {(['yes', 'no', 'not-applicable'] as const).map((a) => (
+        <Button key={a} tone={item.answer === a ? 'primary' : 'plain'} onClick={() => onSave({ answer: a, reason: reason || undefined })}>
+          {a === 'not-applicable' ? 'n/a' : a}
+        </Button>
+      ))}
+      <input aria-label={`Reason for ${item.itemKey}`} placeholder="reason (needed for n/a)" className="w-40 rounded border border-rule px-1 text-xs" value={reason} onChange={(e) => setReason(e.target.value)} />
+    </div>
+  );
+}

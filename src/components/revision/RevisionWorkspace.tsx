@@ -1,0 +1,62 @@
+import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { revisionQuery } from '../../lib/queries/revisions.queries';
+import type { WorkflowRole } from '../../lib/workflow/revision.machine';
+import { withQueryClient } from '../ui/with-query-client';
+import { Busy, ErrorNote, StateBadge } from '../ui/parts';
+import BondingEditor from '../editor/BondingEditor';
+import JsonInputsEditor from '../editor/JsonInputsEditor';
+import WorkflowBar from './WorkflowBar';
+import ResultsTab from './ResultsTab';
+import ChecklistTab from './ChecklistTab';
+import RemarksTab from './RemarksTab';
+import CheckValuesTab from './CheckValuesTab';
+import HistoryTab from './HistoryTab';
+import RecordDownload from './RecordDownload';
+
+const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'History'] as const;
+type Tab = (typeof TABS)[number];
+
+function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; userId: string; roles: WorkflowRole[] }) {
+  const { data, isPending, error } = useQuery(revisionQuery(revisionId));
+  const [tab, setTab] = useState<Tab | null>(null);
+  if (isPending) return <Busy label="Loading the revision…" />;
+  if (error) return <ErrorNote error={error} />;
+  const r = data.revision;
+  const editable = ['draft', 'returned'].includes(r.state) && r.designerId === userId;
+  const participant = roles.some((x) => x !== 'auditor') && !['issued', 'withdrawn', 'superseded'].includes(r.state);
+  const current: Tab = tab ?? (editable ? 'Inputs' : r.results ? 'Results' : 'Inputs');
+  const openRemarks = data.remarks.filter((m) => !m.resolved).length;
+
+  return (
+    <div className="space-y-4">
+      <header className="flex flex-wrap items-start gap-4">
+        <div>
+          <p className="font-mono text-sm text-copper">{data.project.name}</p>
+          <h1 className="text-display font-bold">{data.study.code} {data.study.title}</h1>
+          <p className="flex items-center gap-2 text-sm">Revision {r.number} <StateBadge state={r.state} /> <a className="text-copper underline" href={`/studies/${data.study.id}`}>all revisions</a></p>
+        </div>
+        <div className="ml-auto"><RecordDownload revisionId={r.id} /></div>
+      </header>
+      <WorkflowBar detail={data} userId={userId} roles={roles} />
+      <nav className="flex flex-wrap gap-1 border-b border-rule" role="tablist">
+        {TABS.map((t) => (
+          <button key={t} role="tab" aria-selected={current === t} type="button" onClick={() => setTab(t)} className={`rounded-t px-3 py-1.5 text-sm ${current === t ? 'border border-b-0 border-rule bg-panel font-semibold' : 'text-ink-soft'}`}>
+            {t}{t === 'Remarks' && openRemarks ? ` (${openRemarks} open)` : ''}
+          </button>
+        ))}
+      </nav>
+      <div role="tabpanel">
+        {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />)}
+        {current === 'Inputs as JSON' && <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />}
+        {current === 'Results' && <ResultsTab detail={data} />}
+        {current === 'Checklist' && <ChecklistTab detail={data} userId={userId} roles={roles} />}
+        {current === 'Remarks' && <RemarksTab detail={data} canWrite={participant} />}
+        {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
+        {current === 'History' && <HistoryTab revisionId={r.id} />}
+      </div>
+    </div>
+  );
+}
+
+export default withQueryClient(RevisionWorkspace);

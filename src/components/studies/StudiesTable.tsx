@@ -1,0 +1,114 @@
+import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { studiesQuery, type StudyListParams, type StudyRow } from '../../lib/queries/studies.queries';
+import { withQueryClient } from '../ui/with-query-client';
+import { Busy, Button, Empty, ErrorNote, StateBadge, formatDate } from '../ui/parts';
+import { STATE_LABEL } from '../ui/states';
+import NewStudyForm from './NewStudyForm';
+
+const column = createColumnHelper<StudyRow>();
+const columns = [
+  column.accessor('code', { header: 'Code', cell: (c) => <a className="font-semibold text-copper hover:underline" href={`/revisions/${c.row.original.revisionId}`}>{c.getValue()}</a> }),
+  column.accessor('title', { header: 'Title' }),
+  column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (c) => (c.getValue() === 'bonding' ? 'Cable bonding' : 'Metalwork exposure') }),
+  column.accessor('revisionNumber', { header: 'Rev', enableSorting: false }),
+  column.accessor('state', { header: 'Stage', enableSorting: false, cell: (c) => <StateBadge state={c.getValue()} /> }),
+  column.accessor('updatedAt', { id: 'updated', header: 'Last change', cell: (c) => formatDate(c.getValue()) }),
+];
+
+function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: boolean }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'code', desc: false }]);
+  const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 10 });
+  const [filters, setFilters] = useState<{ state?: string; kind?: string; search?: string }>({});
+  const [creating, setCreating] = useState(false);
+  const params: StudyListParams = {
+    page: pagination.pageIndex,
+    pageSize: pagination.pageSize,
+    sort: (sorting[0]?.id ?? 'code') as StudyListParams['sort'],
+    direction: sorting[0]?.desc ? 'desc' : 'asc',
+    ...filters,
+  };
+  const { data, isPending, isFetching, error } = useQuery(studiesQuery(projectId, params));
+  const table = useReactTable({
+    data: data?.rows ?? [],
+    columns,
+    getCoreRowModel: getCoreRowModel(),
+    manualPagination: true,
+    manualSorting: true,
+    rowCount: data?.total ?? 0,
+    state: { sorting, pagination },
+    onSortingChange: setSorting,
+    onPaginationChange: setPagination,
+  });
+  const setFilter = (key: keyof typeof filters, value: string) => {
+    setFilters((f) => ({ ...f, [key]: value || undefined }));
+    setPagination((p) => ({ ...p, pageIndex: 0 }));
+  };
+
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <label className="text-sm">
+          Find
+          <input aria-label="Find by code or title" className="ml-2 rounded border border-rule bg-panel px-2 py-1" placeholder="code or title" onChange={(e) => setFilter('search', e.target.value)} />
+        </label>
+        <label className="text-sm">
+          Stage
+          <select aria-label="Stage" className="ml-2 rounded border border-rule bg-panel px-2 py-1" onChange={(e) => setFilter('state', e.target.value)}>
+            <option value="">any</option>
+            {Object.entries(STATE_LABEL).map(([k, v]) => <option key={k} value={k}>{v}</option>)}
+          </select>
+        </label>
+        <label className="text-sm">
+          Kind
+          <select aria-label="Kind" className="ml-2 rounded border border-rule bg-panel px-2 py-1" onChange={(e) => setFilter('kind', e.target.value)}>
+            <option value="">any</option>
+            <option value="bonding">Cable bonding</option>
+            <option value="exposure">Metalwork exposure</option>
+          </select>
+        </label>
+        {isFetching && !isPending && <Busy label="Updating…" />}
+        {canCreate && <Button className="ml-auto" onClick={() => setCreating((c) => !c)}>{creating ? 'Close' : 'New study'}</Button>}
+      </div>
+      {creating && <NewStudyForm projectId={projectId} />}
+      {error ? <ErrorNote error={error} /> : isPending ? <Busy label="Loading studies…" /> : data.total === 0 ? (
+        <Empty>No study matches. {canCreate ? 'Start one with "New study".' : ''}</Empty>
+      ) : (
+        <table className="w-full rounded-lg border border-rule bg-panel text-sm" data-testid="studies-table">
+          <thead className="bg-copper-light text-left">
+            {table.getHeaderGroups().map((g) => (
+              <tr key={g.id}>
+                {g.headers.map((h) => (
+                  <th key={h.id} className="px-3 py-2">
+                    {h.column.getCanSort() ? (
+                      <button type="button" className="font-semibold" onClick={h.column.getToggleSortingHandler()}>
+                        {flexRender(h.column.columnDef.header, h.getContext())} {({ asc: '▲', desc: '▼' } as Record<string, string>)[h.column.getIsSorted() as string] ?? ''}
+                      </button>
+                    ) : flexRender(h.column.columnDef.header, h.getContext())}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.map((r) => (
+              <tr key={r.id} className="border-t border-rule">
+                {r.getVisibleCells().map((c) => <td key={c.id} className="px-3 py-2">{flexRender(c.column.columnDef.cell, c.getContext())}</td>)}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      )}
+      {data && data.total > 0 && (
+        <div className="flex items-center gap-2 text-sm">
+          <Button tone="plain" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</Button>
+          <span>Page {pagination.pageIndex + 1} of {Math.max(1, table.getPageCount())} ({data.total} studies)</span>
+          <Button tone="plain" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>Next</Button>
+        </div>
+      )}
+    </div>
+  );
+}
+
+export default withQueryClient(StudiesTable);

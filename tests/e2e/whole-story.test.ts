@@ -1,0 +1,185 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { appUrl, browserAs, hydrated, screenshot } from '../helpers/browser-session';
+
+// The whole story in Debian's Chromium: a designer builds a cross-bonded study, calculates and
+// submits it; a checker returns it with a remark; the designer fixes and resubmits; the checker
+// passes it; the approver issues it; the auditor finds every step and the chain verifies.
+
+const code = `W${Date.now() % 100000}`;
+let revisionUrl = '';
+const sessions: Array<{ page: Page; close: () => Promise<void>; errors: string[] }> = [];
+
+async function as(email: string) {
+  const s = await browserAs(email);
+  sessions.push(s);
+  return s.page;
+}
+
+async function stage(page: Page) {
+  return (await page.locator('header span.inline-block').first().textContent())?.trim();
+}
+
+async function confirmStep(page: Page, button: string, text?: string) {
+  await page.getByRole('button', { name: button }).click();
+  const box = page.getByRole('textbox', { name: /Reason|Sign-off statement/ });
+  if (await box.count()) {
+    if (text) await box.fill(text);
+    await page.getByRole('button', { name: /^Confirm/ }).click();
+  }
+}
+
+async function answerManualItems(page: Page) {
+  await page.getByRole('tab', { name: 'Checklist' }).click();
+  const manual = page.getByTestId('manual-items').locator('tr');
+  await manual.first().waitFor();
+  const count = await manual.count();
+  for (let i = 0; i < count; i++) {
+    await manual.nth(i).getByRole('button', { name: 'yes', exact: true }).click();
+    await page.waitForTimeout(150);
+  }
+  await expect.poll(async () => manual.getByRole('button', { name: 'yes', exact: true }).evaluateAll((b) => b.filter((x) => x.className.includes('bg-copper')).length)).toBe(count);
+}
+
+describe('the whole story in the browser', { timeout: 60_000 }, () => {
+  afterAll(async () => {
+    for (const s of sessions) await s.close();
+    expect(sessions.flatMap((s) => s.errors)).toEqual([]);
+  });
+
+  it('a designer creates a cross-bonded study, is told what to fix, calculates and submits', async () => {
+    const page = await as('designer@sheathwise.example');
+    await page.getByRole('link', { name: 'Projects', exact: true }).click();
+    await hydrated(page);
+    await page.getByRole('link', { name: /Fernhollow/ }).click();
+    await hydrated(page);
+    await page.getByTestId('studies-table').waitFor();
+    await screenshot(page, 'project-studies');
+    await page.getByRole('button', { name: 'New study' }).click();
+    await page.getByRole('button', { name: 'Create and open the editor' }).click();
+    await expect(page.getByText('Give the study a code.').isVisible()).resolves.toBe(true);
+    await page.getByLabel('Code', { exact: true }).fill(code);
+    await page.getByLabel('Title', { exact: true }).fill('Story route, cross-bonded');
+    await page.getByLabel('Limit set').selectOption({ index: 1 });
+    await page.getByRole('button', { name: 'Create and open the editor' }).click();
+    await page.waitForURL(/\/revisions\//);
+    await hydrated(page);
+    revisionUrl = page.url();
+    await page.getByTestId('cross-section-sketch').waitFor();
+
+    // Bad input: a zero length is refused field by field, and nothing is saved.
+    await page.getByLabel('Section 2 length').fill('0');
+    await page.getByRole('button', { name: 'Save inputs' }).click();
+    await page.getByText('Section length must be greater than zero.').waitFor();
+    await screenshot(page, 'editor-bad-input');
+
+    await page.getByLabel('Section 2 length').fill('470');
+    await page.getByRole('button', { name: 'Save inputs' }).click();
+    await page.getByRole('button', { name: 'Calculate' }).click();
+    await page.getByTestId('calculated').waitFor();
+    await page.getByRole('tab', { name: 'Results' }).click();
+    await page.getByTestId('route-profile').waitFor();
+    await page.getByTestId('cross-checks').waitFor();
+    await screenshot(page, 'results');
+    await answerManualItems(page);
+    await screenshot(page, 'checklist-designer');
+    await confirmStep(page, 'Submit for check');
+    await expect.poll(() => stage(page)).toBe('Waiting for check');
+  });
+
+  it('a checker finds it in the queue and returns it with a remark', async () => {
+    const page = await as('checker@sheathwise.example');
+    await page.getByTestId('queue-checker').getByRole('link', { name: new RegExp(code) }).click();
+    await hydrated(page);
+    await page.getByRole('button', { name: 'Take for checking' }).click();
+    await expect.poll(() => stage(page)).toBe('Being checked');
+    await confirmStep(page, 'Return to designer', 'Section 2 must be 480 m as surveyed; please correct and recalculate.');
+    await expect.poll(() => stage(page)).toBe('Returned to designer');
+    await page.getByRole('tab', { name: /Remarks/ }).click();
+    await expect(page.getByTestId('remarks').textContent()).resolves.toContain('480 m as surveyed');
+  });
+
+  it('the designer fixes the input, recalculates and resubmits', async () => {
+    const page = sessionsPage(0);
+    await page.goto(revisionUrl);
+    await hydrated(page);
+    await page.getByLabel('Section 2 length').fill('480');
+    await page.getByRole('button', { name: 'Save inputs' }).click();
+    await page.getByRole('button', { name: 'Calculate' }).click();
+    await page.getByTestId('calculated').waitFor();
+    await confirmStep(page, 'Submit for check', 'Corrected section 2 to the surveyed 480 m.');
+    await expect.poll(() => stage(page)).toBe('Waiting for check');
+  });
+
+  it('the checker works through the worksheet, records a check value and passes it', async () => {
+    const page = sessionsPage(1);
+    await page.goto(revisionUrl);
+    await hydrated(page);
+    await page.getByRole('button', { name: 'Take for checking' }).click();
+    await expect.poll(() => stage(page)).toBe('Being checked');
+    await page.getByRole('tab', { name: 'Checklist' }).click();
+    await page.getByTestId('checklist').getByRole('button', { name: 'Agree' }).first().click();
+    await page.getByRole('tab', { name: 'Check values' }).click();
+    await page.getByLabel('Your value').fill('not a number');
+    await page.getByRole('button', { name: 'Record check value' }).click();
+    await page.getByText('Enter your value as a number.').waitFor();
+    const computed = await page.getByRole('combobox').first().evaluate((s: HTMLSelectElement) => s.value);
+    expect(computed).toContain(':');
+    await page.getByLabel('Your value').fill('1');
+    await page.getByLabel('Explanation (if it deviates)').fill('Hand estimate from the closed form; order of magnitude only.');
+    await page.getByRole('button', { name: 'Record check value' }).click();
+    await page.getByTestId('check-values').waitFor();
+    await screenshot(page, 'check-worksheet');
+    await confirmStep(page, 'Pass the check');
+    await expect.poll(() => stage(page)).toBe('Checked, awaiting approval');
+  });
+
+  it('the approver issues it', async () => {
+    const page = await as('approver@sheathwise.example');
+    await page.getByTestId('queue-approver').getByRole('link', { name: new RegExp(code) }).click();
+    await hydrated(page);
+    await page.getByRole('tab', { name: 'Checklist' }).click();
+    await screenshot(page, 'approval');
+    await confirmStep(page, 'Approve and issue', 'Approved for construction on the owner\'s behalf.');
+    await expect.poll(() => stage(page)).toBe('Issued');
+  });
+
+  it('the auditor finds every step in the history, the chain verifies, and the record downloads', async () => {
+    const page = await as('auditor@sheathwise.example');
+    await page.goto(revisionUrl);
+    await hydrated(page);
+    await page.getByRole('tab', { name: 'History' }).click();
+    const history = await page.getByTestId('history').textContent();
+    for (const step of ['study.created', 'revision.calculated', 'revision.submit', 'revision.startCheck', 'revision.return', 'revision.inputs-changed', 'revision.pass', 'revision.issue']) expect(history).toContain(step);
+    const download = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'Download the record (.docx)' }).click();
+    expect((await download).suggestedFilename()).toBe(`${code}-rev1.docx`);
+
+    await page.getByRole('link', { name: 'Audit trail' }).click();
+    await hydrated(page);
+    await page.getByLabel('Revision id').fill('not-an-id');
+    await page.getByRole('alert').waitFor();
+    await page.getByLabel('Revision id').fill(revisionUrl.split('/').pop()!);
+    await page.getByTestId('audit-table').waitFor();
+    await expect.poll(async () => page.getByTestId('audit-table').textContent()).toContain('revision.issue');
+    await page.getByRole('button', { name: 'Verify the chain' }).click();
+    await expect(page.getByTestId('chain-result').textContent()).resolves.toMatch(/Chain intact/);
+    await screenshot(page, 'audit');
+  });
+
+  it('the administrator sees people, membership and limit sets, and a bad invitation is refused', async () => {
+    const page = await as('admin@sheathwise.example');
+    await page.getByRole('link', { name: 'Administration' }).click();
+    await hydrated(page);
+    await page.getByTestId('users').waitFor();
+    await page.getByLabel('Invitee e-mail').fill('not-an-address');
+    await page.getByLabel('Invitee name').fill('X');
+    await page.getByRole('button', { name: 'Send invitation' }).click();
+    await page.getByText('This is not an e-mail address.').waitFor();
+    await page.getByTestId('limits').first().waitFor();
+    await screenshot(page, 'admin');
+    expect(page.url()).toBe(`${appUrl}/admin`);
+  });
+});
+
+const sessionsPage = (i: number): Page => sessions[i].page;
