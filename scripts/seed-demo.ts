@@ -49,7 +49,7 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
     ids[u.role] = user.id;
     if (u.role !== 'admin') await db.insert(memberships).values({ projectId: project.id, userId: user.id, role: u.role });
   }
-  const s: AppServices = { db, pool, jobs: null, appUrl: '' };
+  const s: AppServices = { db, pool, jobs: null, store: null, appUrl: '' };
   const as = async (role: string) => (await loadSessionUser(db, ids[role]))!;
   const [designer, checker, approver, admin] = await Promise.all(['designer', 'checker', 'approver', 'admin'].map(as));
 

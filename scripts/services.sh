@@ -99,6 +99,19 @@ start_maildev() {
   log "mail catcher: SMTP 127.0.0.1:$smtp, inbox http://127.0.0.1:$web"
 }
 
+# start_s3 PORT DIRECTORY: the S3-compatible fake (s3rver) for uploaded files, loopback only.
+start_s3() {
+  local port="$1" dir="$2"
+  mkdir -p "$dir"
+  node "$ROOT/scripts/s3-fake.mjs" "$port" "$dir" sheathwise-files >"${S3_LOG:-/dev/null}" 2>&1 &
+  STARTED_PIDS+=("$!")
+  local i
+  for ((i = 0; i < 100; i++)); do port_in_use "$port" && break; sleep 0.1; done
+  port_in_use "$port" || { log "the S3 fake did not start"; return 1; }
+  export S3_ENDPOINT="http://127.0.0.1:$port" S3_BUCKET=sheathwise-files S3_ACCESS_KEY=S3RVER S3_SECRET_KEY=S3RVER
+  log "object store (S3 fake): http://127.0.0.1:$port, files in $dir"
+}
+
 wait_for_url() {
   local url="$1" seconds="$2" i
   for ((i = 0; i < seconds * 5; i++)); do

@@ -17,6 +17,7 @@ ensure_fonts
 start_postgres "$ROOT/.data/pg" "$PG_PORT" sheathwise
 migrate_and_seed --seed
 start_maildev "$SMTP_PORT_DEV" "$MAIL_WEB_PORT"
+start_s3 "${SHEATHWISE_S3_PORT:-4569}" "$ROOT/.data/s3"
 
 # The session secret is made once and kept beside the data, so sign-ins survive restarts.
 SECRET_FILE="$ROOT/.data/auth-secret"

@@ -7,7 +7,7 @@ export SHEATHWISE_PORT="${SHEATHWISE_TEST_PORT:-4391}"
 PG_PORT="${SHEATHWISE_TEST_PG_PORT:-55491}"
 export TEST_ARTIFACTS="$ROOT/test-artifacts"
 mkdir -p "$TEST_ARTIFACTS"
-export BUILD_LOG="$TEST_ARTIFACTS/build.log" SERVER_LOG="$TEST_ARTIFACTS/server.log" MAILDEV_LOG="$TEST_ARTIFACTS/maildev.log"
+export BUILD_LOG="$TEST_ARTIFACTS/build.log" SERVER_LOG="$TEST_ARTIFACTS/server.log" MAILDEV_LOG="$TEST_ARTIFACTS/maildev.log" S3_LOG="$TEST_ARTIFACTS/s3.log"
 
 TMP_PG="$(mktemp -d /tmp/sheathwise-test-pg.XXXXXX)"
 chmod 755 "$TMP_PG"
@@ -22,6 +22,7 @@ ensure_chromium
 start_postgres "$TMP_PG/data" "$PG_PORT" sheathwise_test
 migrate_and_seed --seed
 start_maildev "${SHEATHWISE_TEST_SMTP_PORT:-1091}" "${SHEATHWISE_TEST_MAIL_WEB_PORT:-1092}"
+start_s3 "${SHEATHWISE_TEST_S3_PORT:-4599}" "$TMP_PG/s3"
 export AUTH_SECRET="test-secret-$(date +%s)-not-for-production"
 export SIGN_IN_MAX_FAILURES=3 SIGN_IN_LOCK_SECONDS=60
 build_app

@@ -130,6 +130,19 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByRole('button', { name: 'Record check value' }).click();
     await page.getByTestId('check-values').waitFor();
     await screenshot(page, 'check-worksheet');
+
+    // Commissioning readings: a wrong file is refused line by line; a good one is compared.
+    await page.getByRole('tab', { name: 'Files' }).click();
+    await page.getByLabel('File kind').selectOption('measurements');
+    await page.getByLabel('File to upload').setInputFiles({ name: 'readings.csv', mimeType: 'text/csv', buffer: Buffer.from('joint,cable,volts\n1,C1-a,3\n') });
+    await page.getByRole('button', { name: 'Upload', exact: true }).click();
+    await page.getByText(/lacks measured_v, load_a/).waitFor();
+    await page.getByLabel('File to upload').setInputFiles({ name: 'readings.csv', mimeType: 'text/csv', buffer: Buffer.from('joint,cable,measured_v,load_a\n1,C1-a,11.5,500\n2,C1-b,12.2,500\n') });
+    await page.getByRole('button', { name: 'Upload', exact: true }).click();
+    await page.getByRole('button', { name: 'Compare with the calculation' }).click();
+    await page.getByTestId('comparison').waitFor();
+    await screenshot(page, 'files-comparison');
+
     await confirmStep(page, 'Pass the check');
     await expect.poll(() => stage(page)).toBe('Checked, awaiting approval');
   });

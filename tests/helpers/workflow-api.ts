@@ -25,8 +25,20 @@ export async function json(res: Response, status?: number) {
   return body;
 }
 
+/** A request with a JSON body, or a multipart body when given FormData. */
 export const send = (s: HttpSession, method: string, path: string, body?: unknown) =>
-  s.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
+  body instanceof FormData
+    ? s.fetch(path, { method, body })
+    : s.fetch(path, { method, headers: { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
+
+/** A multipart upload body. */
+export function uploadForm(kind: string, fileName: string, content: string | Uint8Array): FormData {
+  const form = new FormData();
+  form.set('kind', kind);
+  const bytes = typeof content === 'string' ? new TextEncoder().encode(content) : content;
+  form.set('file', new Blob([new Uint8Array(bytes)]), fileName);
+  return form;
+}
 
 /** The demo project and limit set ids. */
 export async function demoIds(s: HttpSession) {

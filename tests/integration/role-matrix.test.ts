@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import path from 'node:path';
 import type { HttpSession } from '../helpers/http-session';
-import { type DemoRole, currentVersion, demoIds, demoSessions, drive, fixtureInputs, json, readyDraft, send } from '../helpers/workflow-api';
+import { type DemoRole, currentVersion, demoIds, demoSessions, drive, fixtureInputs, json, readyDraft, send, uploadForm } from '../helpers/workflow-api';
 
 // Every endpoint, called by every demo role: the roles allowed succeed, the others get 403.
 // Requests that change state are built per role so that an allowed call has something valid to
@@ -25,6 +25,8 @@ interface Fixture {
   failingItemKey: string;
   remarkId: string;
   userId: string;
+  fileId: string;
+  measurementsId: string;
 }
 
 type Call = (f: Fixture, role: DemoRole) => { method: string; path: string; body?: unknown };
@@ -69,6 +71,10 @@ const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: 
   { route: 'POST /api/revisions/[revisionId]/remarks', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/remarks`, body: { body: `A remark from the ${role}.` } }) },
   { route: 'PATCH /api/remarks/[remarkId]', allowed: PARTICIPANTS, status: 200, call: (f) => ({ method: 'PATCH', path: `/api/remarks/${f.remarkId}`, body: { resolved: true } }) },
   { route: 'POST /api/revisions/[revisionId]/check-values', allowed: ['checker'], status: 201, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/check-values`, body: { itemKey: 'standing-voltage-normal:LOAD', checkerValue: 22.0 } }) },
+  { route: 'GET /api/revisions/[revisionId]/files', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/files` }) },
+  { route: 'POST /api/revisions/[revisionId]/files', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/files`, body: uploadForm('other', `${role}.csv`, 'note\nfrom the matrix\n') }) },
+  { route: 'GET /api/files/[fileId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/files/${f.fileId}` }) },
+  { route: 'GET /api/files/[fileId]/comparison', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/files/${f.measurementsId}/comparison` }) },
   { route: 'GET /api/audit', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit?pageSize=5' }) },
   { route: 'GET /api/audit/facets', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/facets' }) },
   { route: 'GET /api/me/queue', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/me/queue' }) },
@@ -112,7 +118,9 @@ describe('role × endpoint matrix', () => {
     const failing = (await json(await sessions.approver.fetch(`/api/revisions/${checkedFailing}`), 200)).checklist.find((i: { status: string }) => i.status === 'fail');
     const remark = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/remarks`, { body: 'Please state the earthing resistance source.' }), 201);
     const me = await json(await sessions.designer.fetch('/api/me'), 200);
-    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, userId: me.id };
+    const file = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('data-sheet', 'svl.pdf', '%PDF-1.4\n% matrix\n')), 201);
+    const measurements = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('measurements', 'readings.csv', 'joint,cable,measured_v,load_a\n1,C1-a,12.0,500\n')), 201);
+    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
   });
 
   for (const entry of matrix) {

@@ -13,8 +13,9 @@ import RemarksTab from './RemarksTab';
 import CheckValuesTab from './CheckValuesTab';
 import HistoryTab from './HistoryTab';
 import RecordDownload from './RecordDownload';
+import FilesTab from './FilesTab';
 
-const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'History'] as const;
+const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History'] as const;
 type Tab = (typeof TABS)[number];
 
 function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; userId: string; roles: WorkflowRole[] }) {
@@ -53,6 +54,7 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
         {current === 'Checklist' && <ChecklistTab detail={data} userId={userId} roles={roles} />}
         {current === 'Remarks' && <RemarksTab detail={data} canWrite={participant} />}
         {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
+        {current === 'Files' && <FilesTab detail={data} canUpload={participant} />}
         {current === 'History' && <HistoryTab revisionId={r.id} />}
       </div>
     </div>

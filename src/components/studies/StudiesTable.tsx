@@ -14,6 +14,8 @@ const columns = [
   column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (c) => (c.getValue() === 'bonding' ? 'Cable bonding' : 'Metalwork exposure') }),
   column.accessor('revisionNumber', { header: 'Rev', enableSorting: false }),
   column.accessor('state', { header: 'Stage', enableSorting: false, cell: (c) => <StateBadge state={c.getValue()} /> }),
+  column.accessor('worstMarginPct', { header: 'Worst margin', enableSorting: false, cell: (c) => { const v = c.getValue(); return v === null ? '—' : <span className={v < 0 ? 'font-semibold text-fail' : 'text-pass'}>{v.toFixed(1)} %</span>; } }),
+  column.accessor('openRemarks', { header: 'Open remarks', enableSorting: false }),
   column.accessor('updatedAt', { id: 'updated', header: 'Last change', cell: (c) => formatDate(c.getValue()) }),
 ];
 

@@ -10,6 +10,8 @@ export interface StudyRow {
   revisionNumber: number;
   state: string;
   updatedAt: string;
+  worstMarginPct: number | null;
+  openRemarks: number;
 }
 
 export interface StudyListParams {

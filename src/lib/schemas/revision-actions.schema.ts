@@ -62,3 +62,5 @@ export const listQuerySchema = z.object({
   page: z.coerce.number().int().min(0).default(0),
   pageSize: z.coerce.number().int().min(1).max(200).default(25),
 });
+
+export const fileUploadSchema = z.object({ kind: z.enum(['data-sheet', 'drawing', 'measurements', 'other']) });

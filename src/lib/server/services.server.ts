@@ -1,6 +1,7 @@
 import { serverConfig } from '../config.server';
 import { createDatabase } from '../db/client';
 import { JobQueue } from '../jobs/job-queue';
+import { ObjectStore } from '../storage/object-store';
 import { MAIL_QUEUE, mailDelivery } from '../mail/mail-delivery';
 import { RECORD_QUEUE, storeIssuedRecord } from '../records/records.service';
 import type { AppServices } from '../services';
@@ -22,7 +23,8 @@ export function services(): Promise<AppServices> {
     const jobs = await JobQueue.start(cfg.DATABASE_URL, [MAIL_QUEUE, RECORD_QUEUE]);
     await jobs.work(MAIL_QUEUE, mailDelivery(shared!.db, { host: cfg.SMTP_HOST, port: cfg.SMTP_PORT, from: cfg.MAIL_FROM }), cfg.MAIL_POLL_SECONDS);
     await jobs.work<{ revisionId: string }>(RECORD_QUEUE, (_id, job) => storeIssuedRecord(shared!, job.revisionId), cfg.MAIL_POLL_SECONDS);
-    return { db: shared!.db, pool: shared!.pool, jobs, appUrl: cfg.APP_URL };
+    const store = new ObjectStore({ endpoint: cfg.S3_ENDPOINT, bucket: cfg.S3_BUCKET, region: cfg.S3_REGION, accessKeyId: cfg.S3_ACCESS_KEY, secretAccessKey: cfg.S3_SECRET_KEY });
+    return { db: shared!.db, pool: shared!.pool, jobs, store, appUrl: cfg.APP_URL };
   })();
   return started;
 }

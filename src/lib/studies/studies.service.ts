@@ -2,7 +2,7 @@ import { and, asc, desc, eq, ilike, inArray, or, sql } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
-import { checklistItems, revisions, studies } from '../db/schema';
+import { checklistItems, remarks, revisions, studies } from '../db/schema';
 import { inTransaction } from '../db/transaction';
 import { appendAudit } from '../audit/audit-log';
 import { inputsHash } from '../canonical-json';
@@ -155,6 +155,9 @@ export async function listStudies(db: Database, projectId: string, q: StudyListQ
       revisionNumber: revisions.number,
       state: revisions.state,
       updatedAt: revisions.updatedAt,
+      // Smallest margin of the latest revision's computed checks (negative: failing).
+      worstMarginPct: sql<number | null>`(select min(${checklistItems.marginPct}) from ${checklistItems} where ${checklistItems.revisionId} = ${revisions.id} and ${checklistItems.kind} = 'computed')`,
+      openRemarks: sql<number>`(select count(*)::int from ${remarks} where ${remarks.revisionId} = ${revisions.id} and not ${remarks.resolved})`,
     })
     .from(studies)
     .innerJoin(latest, eq(latest.studyId, studies.id))

@@ -5,3 +5,4 @@ export * from './studies';
 export * from './audit';
 export * from './invitations';
 export * from './records';
+export * from './files';
