@@ -16,6 +16,8 @@ import { updateChecklistItem } from '../src/lib/studies/revision-items.service';
 import { applyStep } from '../src/lib/workflow/revision-workflow.server';
 import { revisionDetail } from '../src/lib/db/revisions.repo';
 import { demoManualItems } from './demo-manual-items';
+import { demoCableTypes } from './demo-cable-types';
+import { addCableType } from '../src/lib/admin/cable-types.service';
 import { storeIssuedRecord } from '../src/lib/records/records.service';
 
 export const DEMO_PASSWORD = 'sheathwise-demo';
@@ -52,6 +54,8 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
   const s: AppServices = { db, pool, jobs: null, store: null, appUrl: '' };
   const as = async (role: string) => (await loadSessionUser(db, ids[role]))!;
   const [designer, checker, approver, admin] = await Promise.all(['designer', 'checker', 'approver', 'admin'].map(as));
+
+  for (const type of demoCableTypes) await addCableType(s, admin, type);
 
   const [limitSet] = await db.insert(limitSets).values({ name: 'Demo owner limits (fictional owner)' }).returning();
   const demoLimits = JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8'));

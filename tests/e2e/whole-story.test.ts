@@ -67,6 +67,11 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     revisionUrl = page.url();
     await page.getByTestId('cross-section-sketch').waitFor();
 
+    // The cables come from the demo catalogue.
+    await page.getByLabel('Cable type from the catalogue').selectOption('XL132-630');
+    await page.getByRole('button', { name: 'Add to the study' }).click();
+    await page.getByLabel('Cable type of C1').selectOption('XL132-630');
+
     // Bad input: a zero length is refused field by field, and nothing is saved.
     await page.getByLabel('Section 2 length').fill('0');
     await page.getByRole('button', { name: 'Save inputs' }).click();
@@ -190,6 +195,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByRole('button', { name: 'Send invitation' }).click();
     await page.getByText('This is not an e-mail address.').waitFor();
     await page.getByTestId('limits').first().waitFor();
+    await page.getByTestId('cable-types').getByText('XL132-1000').waitFor();
     await screenshot(page, 'admin');
     expect(page.url()).toBe(`${appUrl}/admin`);
   });

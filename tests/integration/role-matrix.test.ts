@@ -75,6 +75,13 @@ const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: 
   { route: 'POST /api/revisions/[revisionId]/files', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/files`, body: uploadForm('other', `${role}.csv`, 'note\nfrom the matrix\n') }) },
   { route: 'GET /api/files/[fileId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/files/${f.fileId}` }) },
   { route: 'GET /api/files/[fileId]/comparison', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/files/${f.measurementsId}/comparison` }) },
+  { route: 'GET /api/cable-types', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/cable-types' }) },
+  {
+    route: 'POST /api/admin/cable-types',
+    allowed: ['admin'],
+    status: 201,
+    call: () => ({ method: 'POST', path: '/api/admin/cable-types', body: { id: `M${Date.now() % 1000000}`, name: 'Matrix cable', conductorResistanceOhmPerKm: 0.05, conductorGmrMm: 10, sheathMeanDiameterMm: 80, sheathResistanceOhmPerKm: 0.1, oversheathThicknessMm: 4, overallDiameterMm: 90, oversheathWithstandKv: 20 } }),
+  },
   { route: 'GET /api/audit', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit?pageSize=5' }) },
   { route: 'GET /api/audit/facets', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/facets' }) },
   { route: 'GET /api/me/queue', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/me/queue' }) },

@@ -8,6 +8,7 @@ import { limitSetDetailsQuery, membersQuery, projectsQuery, usersQuery } from '.
 import { invitationSchema } from '../../lib/schemas/revision-actions.schema';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, ErrorNote } from '../ui/parts';
+import CableCatalogue from './CableCatalogue';
 
 const box = 'rounded-lg border border-rule bg-panel p-4';
 
@@ -106,6 +107,7 @@ function AdminPanel() {
       <People />
       <Membership />
       <LimitSets />
+      <CableCatalogue />
     </div>
   );
 }

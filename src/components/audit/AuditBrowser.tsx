@@ -5,6 +5,7 @@ import { api } from '../../lib/queries/api-client';
 import { auditFacetsQuery, auditQuery, type AuditFilters, type AuditRow } from '../../lib/queries/audit.queries';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, formatDate } from '../ui/parts';
+import RecordDownload from '../revision/RecordDownload';
 
 const column = createColumnHelper<AuditRow>();
 const columns = [
@@ -12,7 +13,10 @@ const columns = [
   column.accessor('at', { header: 'When (UTC)', cell: (c) => formatDate(c.getValue()) }),
   column.accessor('actorName', { header: 'Who', cell: (c) => c.getValue() ?? 'the system' }),
   column.accessor('type', { header: 'What' }),
-  column.accessor('revisionId', { header: 'Revision', cell: (c) => (c.getValue() ? <a className="text-copper underline" href={`/revisions/${c.getValue()}`}>open</a> : '—') }),
+  column.accessor('revisionId', {
+    header: 'Revision',
+    cell: (c) => (c.getValue() ? <span className="flex items-center gap-2"><a className="text-copper underline" href={`/revisions/${c.getValue()}`}>open</a>{c.row.original.type === 'record.issued' && <RecordDownload revisionId={c.getValue()!} label="record" />}</span> : '—'),
+  }),
   column.accessor('detail', { header: 'Detail', cell: (c) => <code className="block max-w-md truncate text-xs" title={JSON.stringify(c.getValue())}>{JSON.stringify(c.getValue())}</code> }),
 ];
 

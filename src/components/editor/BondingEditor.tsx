@@ -1,7 +1,8 @@
 import { useEffect, useRef, useState } from 'react';
 import { Controller, useFieldArray, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { cableCatalogueQuery } from '../../lib/queries/catalogue.queries';
 import { bondingStudySchema, type BondingStudyInput } from '../../lib/schemas/bonding-study.schema';
 import { ApiError, api } from '../../lib/queries/api-client';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
@@ -25,6 +26,10 @@ export default function BondingEditor({ detail, readOnly }: { detail: RevisionDe
   const cases = useFieldArray({ control, name: 'cases' });
   const cableTypes = useFieldArray({ control, name: 'cableTypes' });
   const svls = useFieldArray({ control, name: 'svls' });
+  const circuits = useFieldArray({ control, name: 'circuits' });
+  const eccs = useFieldArray({ control, name: 'eccs' });
+  const catalogue = useQuery(cableCatalogueQuery());
+  const [fromCatalogue, setFromCatalogue] = useState('');
   const [pasteText, setPasteText] = useState('');
   const [pasteError, setPasteError] = useState<string | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
@@ -105,6 +110,29 @@ export default function BondingEditor({ detail, readOnly }: { detail: RevisionDe
               <Field register={register} errors={errors} name={`cableTypes.${i}.oversheathThicknessMm`} label="Oversheath (mm)" />
               <Field register={register} errors={errors} name={`cableTypes.${i}.overallDiameterMm`} label="Overall dia. (mm)" />
               <Field register={register} errors={errors} name={`cableTypes.${i}.oversheathWithstandKv`} label="Oversheath withstand (kV)" />
+              <Button tone="danger" onClick={() => cableTypes.remove(i)} disabled={cableTypes.fields.length === 1}>Remove</Button>
+            </div>
+          ))}
+          <div className="flex flex-wrap items-end gap-2">
+            <label className="text-xs"><span className="text-ink-soft">From the catalogue</span>
+              <select aria-label="Cable type from the catalogue" className="mt-0.5 block rounded border border-rule px-1 py-0.5" value={fromCatalogue} onChange={(e) => setFromCatalogue(e.target.value)}>
+                <option value="">choose…</option>
+                {catalogue.data?.cableTypes.map((c) => <option key={c.id} value={c.code}>{c.code}: {c.data.name}</option>)}
+              </select>
+            </label>
+            <Button tone="plain" disabled={!fromCatalogue} onClick={() => { const c = catalogue.data?.cableTypes.find((x) => x.code === fromCatalogue); if (c && !getValues('cableTypes').some((t) => t.id === c.code)) cableTypes.append(c.data); }}>Add to the study</Button>
+          </div>
+          <h4 className="mt-3 text-sm font-semibold">Circuits</h4>
+          {circuits.fields.map((f, i) => (
+            <div key={f.id} className="flex flex-wrap items-end gap-2">
+              <Field register={register} errors={errors} name={`circuits.${i}.id`} label="Circuit id" type="text" className="w-16" readOnly />
+              <Field register={register} errors={errors} name={`circuits.${i}.name`} label="Circuit name" type="text" className="w-56" />
+              <label className="block text-xs"><span className="text-ink-soft">Cable type</span>
+                <select aria-label={`Cable type of ${getValues(`circuits.${i}.id`)}`} {...register(`circuits.${i}.cableTypeId`)} className="mt-0.5 block rounded border border-rule px-1 py-0.5">
+                  {watch('cableTypes').map((t) => <option key={t.id} value={t.id}>{t.id}</option>)}
+                </select>
+                <FieldMessage errors={errors} name={`circuits.${i}.cableTypeId`} />
+              </label>
             </div>
           ))}
         </section>
@@ -129,6 +157,17 @@ export default function BondingEditor({ detail, readOnly }: { detail: RevisionDe
                   </div>
                 ))}
                 <FieldMessage errors={errors} name={`layouts.${li}.circuits`} />
+                {(layout.eccs ?? []).map((e, ei) => (
+                  <div key={`${e.eccId}-${ei}`} className="flex flex-wrap items-end gap-2">
+                    <span className="text-sm">ECC {e.eccId}</span>
+                    <Field register={register} errors={errors} name={`layouts.${li}.eccs.${ei}.xM`} label="ECC x (m)" />
+                    <Field register={register} errors={errors} name={`layouts.${li}.eccs.${ei}.depthM`} label="ECC depth (m)" />
+                  </div>
+                ))}
+                {(watch('eccs') ?? []).filter((e) => !(layout.eccs ?? []).some((p) => p.eccId === e.id)).map((e) => (
+                  <Button key={e.id} tone="plain" onClick={() => setValue(`layouts.${li}.eccs`, [...(getValues(`layouts.${li}.eccs`) ?? []), { eccId: e.id, xM: 0.5, depthM: 1.0 }], { shouldDirty: true })}>Place ECC {e.id} in this layout</Button>
+                ))}
+                <FieldMessage errors={errors} name={`layouts.${li}.eccs`} />
               </div>
               <CrossSectionSketch layout={layout} cableTypes={watch('cableTypes')} circuits={watch('circuits')} />
             </div>
@@ -195,6 +234,25 @@ export default function BondingEditor({ detail, readOnly }: { detail: RevisionDe
           <Button tone="plain" onClick={() => groups.append({ kind: 'cross-bonded', sectionIds: ids.slice(-3) })}>Add group</Button>
           <FieldMessage errors={errors} name="bonding" />
           <p className="mt-1 text-xs text-ink-soft">Sections in use: {ids.join(', ')}</p>
+        </section>
+
+        <section className={box}>
+          <h3 className="mb-2 font-semibold">Earth continuity conductors</h3>
+          {eccs.fields.map((f, i) => (
+            <div key={f.id} className="mb-2 flex flex-wrap items-end gap-2">
+              <Field register={register} errors={errors} name={`eccs.${i}.id`} label="ECC id" type="text" className="w-16" />
+              <Field register={register} errors={errors} name={`eccs.${i}.name`} label="ECC name" type="text" className="w-40" />
+              <Field register={register} errors={errors} name={`eccs.${i}.resistanceOhmPerKm`} label="ECC R (Ω/km)" />
+              <Field register={register} errors={errors} name={`eccs.${i}.gmrMm`} label="ECC GMR (mm)" />
+              <Field register={register} errors={errors} name={`eccs.${i}.fromSectionId`} label="From section" type="text" className="w-16" />
+              <Field register={register} errors={errors} name={`eccs.${i}.toSectionId`} label="To section" type="text" className="w-16" />
+              <label className="text-xs"><input type="checkbox" {...register(`eccs.${i}.transposedAtMidpoint`)} /> crossed over mid-way</label>
+              <Button tone="danger" onClick={() => eccs.remove(i)}>Remove</Button>
+              <FieldMessage errors={errors} name={`eccs.${i}`} />
+            </div>
+          ))}
+          <Button tone="plain" onClick={() => eccs.append({ id: `E${eccs.fields.length + 1}`, name: 'ECC', resistanceOhmPerKm: 0.06, gmrMm: 8.6, fromSectionId: ids[0], toSectionId: ids[ids.length - 1], transposedAtMidpoint: false })}>Add ECC</Button>
+          <p className="mt-1 text-xs text-ink-soft">Give each ECC its position beside the cables under Formation.</p>
         </section>
 
         <section className={box}>

@@ -6,3 +6,4 @@ export * from './audit';
 export * from './invitations';
 export * from './records';
 export * from './files';
+export * from './cable-types';
