@@ -98,6 +98,10 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await hydrated(page);
     await page.getByRole('button', { name: 'Take for checking' }).click();
     await expect.poll(() => stage(page)).toBe('Being checked');
+    // Bad input on the remarks screen: an empty remark is refused.
+    await page.getByRole('tab', { name: /Remarks/ }).click();
+    await page.getByRole('button', { name: 'Add remark' }).click();
+    await page.getByText('Write the remark.').waitFor();
     await confirmStep(page, 'Return to designer', 'Section 2 must be 480 m as surveyed; please correct and recalculate.');
     await expect.poll(() => stage(page)).toBe('Returned to designer');
     await page.getByRole('tab', { name: /Remarks/ }).click();
@@ -160,6 +164,23 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await screenshot(page, 'approval');
     await confirmStep(page, 'Approve and issue', 'Approved for construction on the owner\'s behalf.');
     await expect.poll(() => stage(page)).toBe('Issued');
+  });
+
+  it('an approver cannot issue a revision with an unjustified failing item, and must justify it in a sentence', async () => {
+    const page = sessionsPage(2);
+    await page.goto(`${appUrl}/`);
+    await hydrated(page);
+    await page.getByTestId('queue-approver').getByRole('link', { name: /B02/ }).click();
+    await hydrated(page);
+    await confirmStep(page, 'Approve and issue');
+    await page.getByText('A failing checklist item has neither been resolved nor justified by the approver.').waitFor();
+    await page.getByRole('button', { name: 'Cancel' }).click();
+    await page.getByRole('tab', { name: 'Checklist' }).click();
+    const box = page.getByRole('textbox', { name: /Justification for/ }).first();
+    await box.fill('ok');
+    await page.getByRole('button', { name: 'Record justification' }).first().click();
+    await page.getByText('A justification needs at least a sentence.').waitFor();
+    await screenshot(page, 'approval-refused');
   });
 
   it('the auditor finds every step in the history, the chain verifies, and the record downloads', async () => {

@@ -5,12 +5,15 @@ import { READERS, projectOfRevision } from '../../../../lib/server/scope';
 import { loadFile } from '../../../../lib/files/files.service';
 import { assertId } from '../../../../lib/db/revisions.repo';
 
+// Header-safe: a name from the uploader must not break or extend the response headers.
+const safeFileName = (name: string) => name.replace(/[^\w.\- ()]/g, '_');
+
 export const GET = endpoint(async ({ locals, params }) => {
   const s = await services();
   const file = await loadFile(s.db, assertId(params.fileId, 'file'));
   authorize(locals.user, { anyRole: READERS, projectId: await projectOfRevision(s.db, file.revisionId) });
   const bytes = await s.store!.get(file.storageKey);
   return new Response(new Uint8Array(bytes), {
-    headers: { 'content-type': file.contentType, 'content-disposition': `attachment; filename="${file.fileName.replace(/"/g, '')}"`, 'x-file-sha256': file.sha256 },
+    headers: { 'content-type': file.contentType, 'content-disposition': `attachment; filename="${safeFileName(file.fileName)}"`, 'x-file-sha256': file.sha256 },
   });
 });
