@@ -17,38 +17,29 @@ export interface AuditEntry {
   detail: Record<string, unknown>;
 }
 
-function eventHash(e: AuditEntry & { at: Date; prevHash: string }): string {
-  return sha256Hex(
-    canonicalJson({
-      at: e.at.getTime(),
-      actorId: e.actorId,
-      type: e.type,
-      projectId: e.projectId ?? null,
-      studyId: e.studyId ?? null,
-      revisionId: e.revisionId ?? null,
-      detail: e.detail,
-      prevHash: e.prevHash,
-    }),
-  );
+type SealedFields = Omit<AuditEvent, 'id' | 'hash'>;
+
+/** The hash over every stored field but the row id and the hash itself. */
+function eventHash(e: SealedFields): string {
+  const { at, actorId, type, projectId, studyId, revisionId, detail, prevHash } = e;
+  return sha256Hex(canonicalJson({ at: at.getTime(), actorId, type, projectId, studyId, revisionId, detail, prevHash }));
 }
 
 /** Appends an event to the chain inside the caller's transaction. */
 export async function appendAudit(tx: Database, entry: AuditEntry): Promise<void> {
   await tx.execute(sql`select pg_advisory_xact_lock(${CHAIN_LOCK})`);
   const [last] = await tx.select({ hash: auditEvents.hash }).from(auditEvents).orderBy(desc(auditEvents.id)).limit(1);
-  const prevHash = last?.hash ?? GENESIS;
-  const at = new Date();
-  await tx.insert(auditEvents).values({
-    at,
+  const fields: SealedFields = {
+    at: new Date(),
     actorId: entry.actorId,
     type: entry.type,
     projectId: entry.projectId ?? null,
     studyId: entry.studyId ?? null,
     revisionId: entry.revisionId ?? null,
     detail: entry.detail,
-    prevHash,
-    hash: eventHash({ ...entry, at, prevHash }),
-  });
+    prevHash: last?.hash ?? GENESIS,
+  };
+  await tx.insert(auditEvents).values({ ...fields, hash: eventHash(fields) });
 }
 
 export interface ChainReport {
@@ -65,7 +56,7 @@ export async function verifyAuditChain(db: Database): Promise<ChainReport> {
     if (row.prevHash !== prev) {
       return { ok: false, checked: i, firstBroken: { id: row.id, reason: 'it does not point at the event before it (an event was removed or reordered)' } };
     }
-    const expected = eventHash({ ...row, at: row.at, detail: row.detail as Record<string, unknown>, prevHash: row.prevHash });
+    const expected = eventHash(row);
     if (row.hash !== expected) {
       return { ok: false, checked: i, firstBroken: { id: row.id, reason: 'its content no longer matches its hash (the event was changed)' } };
     }
