@@ -20,6 +20,8 @@ ensure_fonts
 (cd "$ROOT" && node scripts/typecheck.mjs)
 ensure_chromium
 start_postgres "$TMP_PG/data" "$PG_PORT" sheathwise_test
+# The reliability tests stop and start this cluster under load.
+export TEST_PG_DATA="$PG_DATA" TEST_PG_PORT="$PG_PORT"
 migrate_and_seed --seed
 start_maildev "${SHEATHWISE_TEST_SMTP_PORT:-1091}" "${SHEATHWISE_TEST_MAIL_WEB_PORT:-1092}"
 start_s3 "${SHEATHWISE_TEST_S3_PORT:-4599}" "$TMP_PG/s3"
@@ -27,6 +29,7 @@ export AUTH_SECRET="test-secret-$(date +%s)-not-for-production"
 export SIGN_IN_MAX_FAILURES=3 SIGN_IN_LOCK_SECONDS=60
 build_app
 start_server
+export TEST_SERVER_PID="$SERVER_PID"
 export APP_URL="http://127.0.0.1:$SHEATHWISE_PORT"
 
 cd "$ROOT"

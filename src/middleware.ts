@@ -9,6 +9,8 @@ import { errorResponse } from './lib/server/http';
 // invitation (the link's token is the credential), static files.
 const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/api/invitations/accept', '/invitation/', '/_astro/', '/favicon'];
 
+const UNAVAILABLE_PAGE = '<!doctype html><meta charset="utf-8"><title>Sheathwise is unavailable</title><meta http-equiv="refresh" content="10"><p>Sheathwise cannot reach its database at the moment. Nothing was lost; this page tries again every 10 seconds.</p>';
+
 export const onRequest = defineMiddleware(async (context, next) => {
   // The first request starts the mail worker, so queued messages go out without waiting for a workflow call.
   void services().catch((err) => console.error('[services]', err));
@@ -18,7 +20,14 @@ export const onRequest = defineMiddleware(async (context, next) => {
 
   const session = await getSession(context.request);
   const id = (session?.user as { id?: string } | undefined)?.id;
-  context.locals.user = id ? await loadSessionUser(database(), id) : null;
+  try {
+    context.locals.user = id ? await loadSessionUser(database(), id) : null;
+  } catch (err) {
+    // The database is down: say so (503 with Retry-After) rather than fail with a bare 500.
+    const response = errorResponse(err);
+    if (pathname.startsWith('/api/') || response.status !== 503) return response;
+    return new Response(UNAVAILABLE_PAGE, { status: 503, headers: { 'Content-Type': 'text/html; charset=utf-8', 'Retry-After': response.headers.get('Retry-After') ?? '5' } });
+  }
 
   if (!context.locals.user) {
     if (pathname.startsWith('/api/')) return errorResponse(new AppError('NotSignedIn'));

@@ -27,6 +27,16 @@ export const errorCatalogue = {
     title: 'Read-only',
     message: 'This revision can no longer change. Start a new revision to make changes.',
   },
+  RecordFailed: {
+    status: 409,
+    title: 'Record not rendered',
+    message: 'The issued record could not be rendered. An approver can render it again once the cause is fixed.',
+  },
+  TooLarge: {
+    status: 413,
+    title: 'Too large',
+    message: 'The upload is larger than the limit.',
+  },
   Unavailable: {
     status: 503,
     title: 'Service unavailable',

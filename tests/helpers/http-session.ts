@@ -3,11 +3,23 @@ import { testEnv } from './env';
 /** A cookie-keeping client for the running app, signed in through Auth.js's real endpoints. */
 export class HttpSession {
   private cookies = new Map<string, string>();
-  readonly base = testEnv().appUrl;
+
+  constructor(readonly base = testEnv().appUrl) {}
+
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
+  }
+
+  /** The same signed-in person talking to another server process (same secret, same database). */
+  at(base: string): HttpSession {
+    const other = new HttpSession(base);
+    for (const [k, v] of this.cookies) other.cookies.set(k, v);
+    return other;
+  }
 
   async fetch(path: string, init: RequestInit = {}): Promise<Response> {
     const headers = new Headers(init.headers);
-    headers.set('cookie', [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; '));
+    headers.set('cookie', this.cookieHeader());
     headers.set('origin', this.base);
     const res = await fetch(this.base + path, { ...init, headers, redirect: 'manual' });
     for (const c of res.headers.getSetCookie()) {

@@ -35,7 +35,7 @@ describe('files attached to a revision, in the S3-compatible store', () => {
   it('refuses an empty or oversized file with the limit in the message', async () => {
     expect((await json(await upload('other', 'empty.csv', ''), 422)).fields[0].message).toBe('The file is empty.');
     const big = new Uint8Array(10 * 1024 * 1024 + 1).fill(0x41);
-    expect((await json(await upload('other', 'big.csv', big), 422)).fields[0].message).toContain('the limit is 10 MiB');
+    expect((await json(await upload('other', 'big.csv', big), 413)).fields[0].message).toContain('limit is 10 MiB');
   });
 
   it('compares commissioning measurements with the calculation scaled to the load at the time', async () => {

@@ -59,10 +59,15 @@ describe('e-mail survives an SMTP outage', () => {
     await inTransaction(handle.pool, (_tx, sqlExecutor) =>
       queue.enqueue(sqlExecutor, MAIL_QUEUE, [{ to: 'checker@sheathwise.example', subject: 'outage probe', text: 'sent while SMTP was down' }]),
     );
-    // Let the worker try and fail at least twice against the closed port.
-    await new Promise((r) => setTimeout(r, 3000));
-    const { rows } = await handle.pool.query(`select retry_count, state from pgboss.job where name = 'mail'`);
-    expect(rows[0].retry_count).toBeGreaterThanOrEqual(1);
+    // Wait until the worker has tried and failed against the closed port (polled: a busy
+    // machine may take longer than an idle one to get there).
+    let retries = 0;
+    for (let waited = 0; waited < 20_000 && retries < 1; waited += 250) {
+      await new Promise((r) => setTimeout(r, 250));
+      const { rows } = await handle.pool.query(`select retry_count from pgboss.job where name = 'mail'`);
+      retries = rows[0]?.retry_count ?? 0;
+    }
+    expect(retries).toBeGreaterThanOrEqual(1);
 
     const maildev = await startMaildev();
     try {

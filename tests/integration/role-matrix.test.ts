@@ -67,6 +67,8 @@ const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: 
           : { method: 'PUT', path: `/api/revisions/${f.checkedFailing}/checklist/${encodeURIComponent(f.failingItemKey)}`, body: { justification: 'Link boxes here are in locked kiosks; accepted by the owner.' } },
   },
   { route: 'GET /api/revisions/[revisionId]/record', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/record` }) },
+  // Rendering again applies only to a failed issued record: the approver is let through and told so.
+  { route: 'POST /api/revisions/[revisionId]/record', allowed: ['approver'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/record` }) },
   { route: 'GET /api/revisions/[revisionId]/remarks', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/remarks` }) },
   { route: 'POST /api/revisions/[revisionId]/remarks', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/remarks`, body: { body: `A remark from the ${role}.` } }) },
   { route: 'PATCH /api/remarks/[remarkId]', allowed: PARTICIPANTS, status: 200, call: (f) => ({ method: 'PATCH', path: `/api/remarks/${f.remarkId}`, body: { resolved: true } }) },

@@ -14,6 +14,11 @@ export interface SqlExecutor {
  */
 export async function inTransaction<T>(pool: pg.Pool, work: (tx: Database, sqlExecutor: SqlExecutor) => Promise<T>): Promise<T> {
   const client = await pool.connect();
+  // A connection lost mid-transaction (a database restart) emits 'error' on the checked-out
+  // client; without a listener that would end the process. The failing query rejects anyway.
+  let lost: Error | undefined;
+  const onError = (err: Error) => (lost = err);
+  client.on('error', onError);
   try {
     await client.query('begin');
     const tx = drizzle(client, { schema }) as unknown as Database;
@@ -21,9 +26,11 @@ export async function inTransaction<T>(pool: pg.Pool, work: (tx: Database, sqlEx
     await client.query('commit');
     return result;
   } catch (err) {
-    await client.query('rollback').catch(() => undefined);
+    await client.query('rollback').catch((e: Error) => (lost ??= e));
     throw err;
   } finally {
-    client.release();
+    client.off('error', onError);
+    // A broken connection is destroyed, not returned to the pool.
+    client.release(lost);
   }
 }

@@ -28,8 +28,9 @@ export class JobQueue {
     return new JobQueue(boss, retry);
   }
 
-  async enqueue(tx: SqlExecutor, queue: string, payloads: object[]): Promise<void> {
-    for (const payload of payloads) await this.boss.send(queue, payload, { ...this.retry, db: tx as PgBoss.Db });
+  /** `expireInSeconds`: how long a started job may run before it counts as failed and is retried. */
+  async enqueue(tx: SqlExecutor, queue: string, payloads: object[], options: { expireInSeconds?: number } = {}): Promise<void> {
+    for (const payload of payloads) await this.boss.send(queue, payload, { ...this.retry, ...options, db: tx as PgBoss.Db });
   }
 
   /** Runs `handle` for each job of a queue; a handler that throws leaves the job to be retried. */

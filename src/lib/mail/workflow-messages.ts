@@ -29,6 +29,15 @@ export function workflowMessage(kind: 'submitted' | 'returned' | 'checked' | 'is
   return { to, subject: subjectOf(c, what), text: `${text}\n\nOpen it: ${link(c)}${FOOTER}` };
 }
 
+/** Tells an approver that the issued record could not be rendered, and what to do. */
+export function recordFailedMessage(c: MessageContext, to: string): OutgoingMail {
+  return {
+    to,
+    subject: subjectOf(c, 'the issued record could not be rendered'),
+    text: `The record of revision ${c.revisionNumber} of "${c.studyTitle}" (${c.projectName}) was issued, but rendering its document failed:\n\n${c.reason ?? ''}\n\nThe revision stays issued and unchanged. Once the cause is fixed, open it and choose "Render the record again": ${link(c)}${FOOTER}`,
+  };
+}
+
 export function invitationMessage(appUrl: string, to: string, name: string, token: string, invitedBy: string, expiresAt: Date): OutgoingMail {
   return {
     to,

@@ -4,6 +4,7 @@ import { limitSetVersions, limitSets } from '../db/schema';
 import { revisionDetail } from '../db/revisions.repo';
 import { parseStudyInputs } from '../studies/study-input';
 import type { Study, StudyResults } from '../calc';
+import { xmlSafe } from './xml-safe-text';
 
 /** Everything a record shows, gathered from the database. */
 export async function gatherRecordData(db: Database, revisionId: string) {
@@ -15,7 +16,8 @@ export async function gatherRecordData(db: Database, revisionId: string) {
         .innerJoin(limitSets, eq(limitSets.id, limitSetVersions.limitSetId))
         .where(eq(limitSetVersions.id, detail.revision.limitSetVersionId))
     : [];
-  return {
+  // The record boundary: whatever text was stored, the document must be well-formed XML.
+  return xmlSafe({
     draft: !['issued', 'superseded'].includes(detail.revision.state),
     project: { code: detail.project.code, name: detail.project.name },
     study: { code: detail.study.code, title: detail.study.title, kind: detail.study.kind },
@@ -27,7 +29,7 @@ export async function gatherRecordData(db: Database, revisionId: string) {
     remarks: detail.remarks,
     checkValues: detail.checkValues,
     signOffs: detail.signOffs,
-  };
+  });
 }
 
 export type RecordData = Awaited<ReturnType<typeof gatherRecordData>>;

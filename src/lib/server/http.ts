@@ -1,6 +1,8 @@
 import type { APIContext, APIRoute } from 'astro';
 import type { z } from 'zod';
 import { AppError } from '../errors';
+import { databaseAppError } from '../db/database-errors';
+import { unstorableText } from './storable-text';
 
 /** Wraps an endpoint so that catalogue errors become JSON with their status, and nothing else leaks. */
 export function endpoint(handler: (ctx: APIContext) => Promise<Response> | Response): APIRoute {
@@ -13,8 +15,16 @@ export function endpoint(handler: (ctx: APIContext) => Promise<Response> | Respo
   };
 }
 
+/** Seconds a client is asked to wait before trying again while a service is down. */
+const RETRY_AFTER_SECONDS = 5;
+
 export function errorResponse(err: unknown): Response {
-  if (err instanceof AppError) return Response.json(err.toJSON(), { status: err.status });
+  const known = err instanceof AppError ? err : databaseAppError(err);
+  if (known) {
+    if (known.errorName === 'Unavailable') console.error('[unavailable]', (err as Error).message);
+    const headers: HeadersInit = known.status === 503 ? { 'Retry-After': String(RETRY_AFTER_SECONDS) } : {};
+    return Response.json(known.toJSON(), { status: known.status, headers });
+  }
   console.error(err);
   return Response.json(
     { error: 'Internal', title: 'Unexpected error', message: 'Something failed on the server; it has been logged.' },
@@ -30,6 +40,8 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   } catch {
     throw new AppError('InvalidInput', 'The request body is not valid JSON.');
   }
+  const unstorable = unstorableText(raw);
+  if (unstorable.length) throw new AppError('InvalidInput', undefined, unstorable);
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
     throw new AppError(

@@ -1,4 +1,4 @@
-import { GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 
 export interface ObjectStoreSettings {
   endpoint: string;
@@ -28,5 +28,9 @@ export class ObjectStore {
   async get(key: string): Promise<Uint8Array> {
     const res = await this.client.send(new GetObjectCommand({ Bucket: this.settings.bucket, Key: key }));
     return res.Body!.transformToByteArray();
+  }
+
+  async delete(key: string): Promise<void> {
+    await this.client.send(new DeleteObjectCommand({ Bucket: this.settings.bucket, Key: key }));
   }
 }

@@ -1,9 +1,10 @@
-import { and, asc, desc, eq, ilike, inArray, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
 import { checklistItems, remarks, revisions, studies } from '../db/schema';
 import { inTransaction } from '../db/transaction';
+import { withLockedRevision } from '../db/revision-lock';
 import { appendAudit } from '../audit/audit-log';
 import { inputsHash } from '../canonical-json';
 import { jsonDiff } from '../json-diff';
@@ -45,16 +46,16 @@ function assertEditableBy(actor: SessionUser, revision: { state: RevisionState; 
 
 /** Replaces a revision's inputs; stale writers (another version) get Conflict. */
 export async function updateInputs(s: AppServices, actor: SessionUser, revisionId: string, raw: unknown, expectedVersion: number) {
-  const { revision, study } = await loadRevisionScope(s.db, revisionId);
-  assertEditableBy(actor, revision);
+  const { study } = await loadRevisionScope(s.db, revisionId);
   const inputs = parseStudyInputs(raw, study.kind);
-  return inTransaction(s.pool, async (tx) => {
+  return withLockedRevision(s, revisionId, async ({ revision }, tx) => {
+    assertEditableBy(actor, revision);
+    if (revision.version !== expectedVersion) throw new AppError('Conflict');
     const [updated] = await tx
       .update(revisions)
       .set({ inputs, inputsHash: inputsHash(inputs), version: sql`${revisions.version} + 1`, updatedAt: new Date() })
-      .where(and(eq(revisions.id, revisionId), eq(revisions.version, expectedVersion), inArray(revisions.state, [...editableStates])))
+      .where(eq(revisions.id, revisionId))
       .returning();
-    if (!updated) throw new AppError('Conflict');
     await appendAudit(tx, { actorId: actor.id, type: 'revision.inputs-changed', projectId: study.projectId, studyId: study.id, revisionId, detail: { changes: jsonDiff(revision.inputs, inputs) } });
     return updated;
   });
@@ -62,6 +63,8 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
 
 /** Calculates a revision, stores the results with the engine version and inputs hash, and refreshes its checklist. */
 export async function calculateRevision(s: AppServices, actor: SessionUser, revisionId: string) {
+  // Calculated outside the lock (CPU-bound); the version check under the lock proves the
+  // inputs are still the ones calculated.
   const { revision, study } = await loadRevisionScope(s.db, revisionId);
   assertEditableBy(actor, revision);
   const inputs = parseStudyInputs(revision.inputs, study.kind);
@@ -74,14 +77,15 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
     throw err;
   }
   const computed = evaluateCompliance(inputs, results, { name: study.title, version: limits.version, limits: limits.limits });
-  return inTransaction(s.pool, async (tx) => {
+  return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
+    assertEditableBy(actor, current);
+    if (current.version !== revision.version) throw new AppError('Conflict');
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
       .update(revisions)
       .set({ results, resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
-      .where(and(eq(revisions.id, revisionId), eq(revisions.version, revision.version)))
+      .where(eq(revisions.id, revisionId))
       .returning();
-    if (!updated) throw new AppError('Conflict');
     await tx.delete(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const rows = checklistRows(revisionId, computed, limits.manualItems, existing);
     if (rows.length) await tx.insert(checklistItems).values(rows);

@@ -7,10 +7,11 @@ import { parseStudyInputs } from '../studies/study-input';
 import type { RevisionFacts } from './revision.machine';
 
 /**
- * Establishes the facts the machine's guards need. `recompute` runs the core again on the
- * stored inputs and demands the same figures (done before submit, pass and issue).
+ * Establishes the facts the machine's guards need. Call it inside the step's transaction, with
+ * the revision row locked, so that no write can change a fact between this read and the step.
+ * `resultsCurrent` comes from `resultsReproduce` (or is true for steps that do not recompute).
  */
-export async function revisionFacts(db: Database, revision: Revision, study: Study, opts: { recompute: boolean; reason?: string }): Promise<RevisionFacts> {
+export async function revisionFacts(db: Database, revision: Revision, opts: { resultsCurrent: boolean; reason?: string }): Promise<RevisionFacts> {
   const [items, values] = await Promise.all([
     db.select().from(checklistItems).where(eq(checklistItems.revisionId, revision.id)),
     db.select().from(checkValues).where(eq(checkValues.revisionId, revision.id)),
@@ -18,7 +19,7 @@ export async function revisionFacts(db: Database, revision: Revision, study: Stu
   const computed = items.filter((i) => i.kind === 'computed');
   const manual = items.filter((i) => i.kind === 'manual');
   return {
-    resultsCurrent: opts.recompute ? resultsReproduce(revision, study) : true,
+    resultsCurrent: opts.resultsCurrent,
     computedEvaluated: computed.length > 0 && computed.every((i) => i.status === 'pass' || i.status === 'fail'),
     manualAnswered: manual.every((i) => i.answer !== null),
     checkValuesSettled: values.every((v) => Math.abs(v.deviationPct) <= v.tolerancePct || !!v.explanation?.trim()),
@@ -27,7 +28,8 @@ export async function revisionFacts(db: Database, revision: Revision, study: Stu
   };
 }
 
-function resultsReproduce(revision: Revision, study: Study): boolean {
+/** Runs the core again on the stored inputs and demands the same figures (before submit, pass and issue). */
+export function resultsReproduce(revision: Revision, study: Study): boolean {
   if (!revision.results || revision.resultsInputsHash !== revision.inputsHash || revision.engineVersion !== ENGINE_VERSION) return false;
   const fresh = calculateStudy(parseStudyInputs(revision.inputs, study.kind));
   return canonicalJson(fresh) === canonicalJson(revision.results);

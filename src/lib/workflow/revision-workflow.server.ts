@@ -4,14 +4,15 @@ import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
 import { remarks, revisions, signOffs } from '../db/schema';
-import { inTransaction } from '../db/transaction';
+import { withLockedRevision } from '../db/revision-lock';
+import type { Database } from '../db/client';
 import { appendAudit } from '../audit/audit-log';
 import { loadRevisionScope, membersWithRole } from '../db/revisions.repo';
 import { workflowMessage, type MessageContext } from '../mail/workflow-messages';
 import { MAIL_QUEUE, type OutgoingMail } from '../mail/mail-delivery';
-import { RECORD_QUEUE } from '../records/records.service';
+import { enqueueRecords } from '../records/records.service';
 import { type UserEvent, type WorkflowRole, refusal, revisionMachine, revisionSnapshot } from './revision.machine';
-import { revisionFacts } from './revision-facts';
+import { resultsReproduce, revisionFacts } from './revision-facts';
 
 export type StepName = 'submit' | 'startCheck' | 'return' | 'pass' | 'issue' | 'withdraw';
 
@@ -33,27 +34,31 @@ const DEFAULT_STATEMENT: Record<'designer' | 'checker' | 'approver', string> = {
 };
 
 /**
- * Applies a workflow step with the revision machine as the authority: guards checked on fresh
- * facts, then state, sign-off, audit event and e-mails written in one transaction with an
- * optimistic version check.
+ * Applies a workflow step with the revision machine as the authority: in one transaction that
+ * holds the revision's row lock, the guards read fresh facts, then the state, sign-off, audit
+ * event and e-mails are written. A stale `version` is a conflict.
  */
 export async function applyStep(s: AppServices, actor: SessionUser, revisionId: string, req: StepRequest) {
-  const { revision, study, project } = await loadRevisionScope(s.db, revisionId);
-  const roles = (actor.projectRoles[project.id] ?? []) as WorkflowRole[];
-  const facts = await revisionFacts(s.db, revision, study, { recompute: RECOMPUTE.has(req.step), reason: req.reason });
-  const event: UserEvent = { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts };
-  const context = { designerId: revision.designerId, checkerId: revision.checkerId, approverId: revision.approverId };
-  const snapshot = revisionSnapshot(revision.state, context);
+  // The cheap refusals first, and the recomputation (CPU-bound) before taking the lock: the
+  // version check under the lock proves that the inputs it used are still the stored ones.
+  const before = await loadRevisionScope(s.db, revisionId);
+  if (before.revision.version !== req.version) throw new AppError('Conflict');
+  const resultsCurrent = RECOMPUTE.has(req.step) && acceptsInState(before.revision.state, `revision.${req.step}`) ? resultsReproduce(before.revision, before.study) : true;
 
-  if (revision.version !== req.version) throw new AppError('Conflict');
-  if (!snapshot.can(event)) {
-    const reasonText = refusalText(revision.state, context, event);
-    throw new AppError(reasonText.kind, reasonText.message);
-  }
-  const [next] = transition(revisionMachine, snapshot, event);
-  const to = next.value as typeof revision.state;
+  return withLockedRevision(s, revisionId, async ({ revision, study, project }, tx, sqlExecutor) => {
+    if (revision.version !== req.version) throw new AppError('Conflict');
+    const roles = (actor.projectRoles[project.id] ?? []) as WorkflowRole[];
+    const facts = await revisionFacts(tx, revision, { resultsCurrent, reason: req.reason });
+    const event: UserEvent = { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts };
+    const context = { designerId: revision.designerId, checkerId: revision.checkerId, approverId: revision.approverId };
+    const snapshot = revisionSnapshot(revision.state, context);
+    if (!snapshot.can(event)) {
+      const reasonText = refusalText(revision.state, context, event);
+      throw new AppError(reasonText.kind, reasonText.message);
+    }
+    const [next] = transition(revisionMachine, snapshot, event);
+    const to = next.value as typeof revision.state;
 
-  return inTransaction(s.pool, async (tx, sqlExecutor) => {
     const now = new Date();
     const [updated] = await tx
       .update(revisions)
@@ -87,10 +92,10 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
       }
     }
 
-    if (to === 'issued') await s.jobs?.enqueue(sqlExecutor, RECORD_QUEUE, [{ revisionId }]);
+    if (to === 'issued') await enqueueRecords(s.jobs, sqlExecutor, [revisionId]);
 
     if (s.jobs) {
-      const messages = await notifications(s, req.step, {
+      const messages = await notifications(tx, req.step, {
         appUrl: s.appUrl,
         projectName: project.name,
         studyTitle: study.title,
@@ -120,13 +125,13 @@ function acceptsInState(state: StateName, type: UserEvent['type']): boolean {
 }
 
 /** Who hears about a step: submit → checkers, return → designer, pass → approvers, issue → all members. */
-async function notifications(s: AppServices, step: StepName, c: MessageContext, projectId: string, designerId: string, actorId: string): Promise<OutgoingMail[]> {
+async function notifications(tx: Database, step: StepName, c: MessageContext, projectId: string, designerId: string, actorId: string): Promise<OutgoingMail[]> {
   const kind = ({ submit: 'submitted', return: 'returned', pass: 'checked', issue: 'issued' } as const)[step as 'submit'];
   if (!kind) return [];
   const people =
-    step === 'submit' ? await membersWithRole(s.db, projectId, ['checker'])
-      : step === 'pass' ? await membersWithRole(s.db, projectId, ['approver'])
-        : step === 'issue' ? await membersWithRole(s.db, projectId, ['designer', 'checker', 'approver', 'auditor'])
-          : (await membersWithRole(s.db, projectId, ['designer'])).filter((p) => p.id === designerId);
+    step === 'submit' ? await membersWithRole(tx, projectId, ['checker'])
+      : step === 'pass' ? await membersWithRole(tx, projectId, ['approver'])
+        : step === 'issue' ? await membersWithRole(tx, projectId, ['designer', 'checker', 'approver', 'auditor'])
+          : (await membersWithRole(tx, projectId, ['designer'])).filter((p) => p.id === designerId);
   return people.filter((p) => p.id !== actorId).map((p) => workflowMessage(kind, c, p.email));
 }

@@ -11,3 +11,13 @@ export const issuedRecords = pgTable('issued_records', {
   sizeBytes: integer('size_bytes').notNull(),
   renderedAt: timestamp('rendered_at', { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * An issued revision whose record could not be rendered (a fault in the data or the template,
+ * not an outage): the approver is told, the download says why, and a retry clears the row.
+ */
+export const recordFailures = pgTable('record_failures', {
+  revisionId: uuid('revision_id').primaryKey().references(() => revisions.id),
+  error: text('error').notNull(),
+  failedAt: timestamp('failed_at', { withTimezone: true }).notNull().defaultNow(),
+});

@@ -4,9 +4,7 @@ import { services } from '../../../../lib/server/services.server';
 import { READERS, projectOfRevision } from '../../../../lib/server/scope';
 import { loadFile } from '../../../../lib/files/files.service';
 import { assertId } from '../../../../lib/db/revisions.repo';
-
-// Header-safe: a name from the uploader must not break or extend the response headers.
-const safeFileName = (name: string) => name.replace(/[^\w.\- ()]/g, '_');
+import { attachment } from '../../../../lib/server/attachment';
 
 export const GET = endpoint(async ({ locals, params }) => {
   const s = await services();
@@ -14,6 +12,6 @@ export const GET = endpoint(async ({ locals, params }) => {
   authorize(locals.user, { anyRole: READERS, projectId: await projectOfRevision(s.db, file.revisionId) });
   const bytes = await s.store!.get(file.storageKey);
   return new Response(new Uint8Array(bytes), {
-    headers: { 'content-type': file.contentType, 'content-disposition': `attachment; filename="${safeFileName(file.fileName)}"`, 'x-file-sha256': file.sha256 },
+    headers: { 'content-type': file.contentType, 'content-disposition': attachment(file.fileName), 'x-file-sha256': file.sha256 },
   });
 });

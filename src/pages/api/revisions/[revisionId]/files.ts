@@ -4,6 +4,7 @@ import { services } from '../../../../lib/server/services.server';
 import { serverConfig } from '../../../../lib/config.server';
 import { PARTICIPANTS, READERS, projectOfRevision } from '../../../../lib/server/scope';
 import { listFiles, uploadFile } from '../../../../lib/files/files.service';
+import { receiveUpload } from '../../../../lib/files/upload-stream';
 import { fileUploadSchema } from '../../../../lib/schemas/revision-actions.schema';
 import { AppError } from '../../../../lib/errors';
 
@@ -16,11 +17,9 @@ export const GET = endpoint(async ({ locals, params }) => {
 export const POST = endpoint(async ({ locals, params, request }) => {
   const s = await services();
   const user = authorize(locals.user, { anyRole: PARTICIPANTS, projectId: await projectOfRevision(s.db, params.revisionId!) });
-  const form = await request.formData().catch(() => null);
-  const file = form?.get('file');
-  const meta = fileUploadSchema.safeParse({ kind: form?.get('kind') });
-  if (!(file instanceof File)) throw new AppError('InvalidInput', undefined, [{ field: 'file', message: 'Choose a file to upload.' }]);
+  const { fields, file } = await receiveUpload(request, serverConfig().UPLOAD_MAX_BYTES);
+  const meta = fileUploadSchema.safeParse({ kind: fields.kind });
+  if (!file) throw new AppError('InvalidInput', undefined, [{ field: 'file', message: 'Choose a file to upload.' }]);
   if (!meta.success) throw new AppError('InvalidInput', undefined, [{ field: 'kind', message: 'Say what the file is: data sheet, drawing, measurements or other.' }]);
-  const bytes = new Uint8Array(await file.arrayBuffer());
-  return Response.json(await uploadFile(s, user, params.revisionId!, { kind: meta.data.kind, fileName: file.name, bytes }, serverConfig().UPLOAD_MAX_BYTES), { status: 201 });
+  return Response.json(await uploadFile(s, user, params.revisionId!, { kind: meta.data.kind, fileName: file.name, bytes: file.bytes }, serverConfig().UPLOAD_MAX_BYTES), { status: 201 });
 });
