@@ -190,9 +190,18 @@ wait_for_url() {
   return 1
 }
 
+# exec_logged FILE COMMAND...: becomes COMMAND (so a kept PID is the command's), its output in
+# FILE, or in ours when FILE is empty. Reopening /dev/stdout instead would empty a file that
+# npm start's output is sent to, and with it the start-up log written so far.
+exec_logged() {
+  local file="$1"
+  shift
+  if [ -n "$file" ]; then exec "$@" >"$file" 2>&1; else exec "$@" 2>&1; fi
+}
+
 build_app() {
   log "building the app for port $SHEATHWISE_PORT"
-  (cd "$ROOT" && node_modules/.bin/astro build >"${BUILD_LOG:-/dev/stdout}" 2>&1) || { log "build failed"; return 1; }
+  (cd "$ROOT" && exec_logged "${BUILD_LOG:-}" node_modules/.bin/astro build) || { log "build failed"; return 1; }
 }
 
 # migrate_and_seed [--seed]: applies drizzle/ migrations, then the demo scenario once.
@@ -201,7 +210,7 @@ migrate_and_seed() {
 }
 
 start_server() {
-  HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/dist/server/entry.mjs" >"${SERVER_LOG:-/dev/stdout}" 2>&1 &
+  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/dist/server/entry.mjs" &
   SERVER_PID=$!
   STARTED_PIDS+=("$SERVER_PID")
   wait_for_url "http://127.0.0.1:$SHEATHWISE_PORT/signin" 60 || { log "server did not answer"; return 1; }
