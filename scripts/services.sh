@@ -45,15 +45,75 @@ ensure_chromium() {
   [ -x /usr/bin/chromium ] || apt_install chromium
 }
 
-# Runs a PostgreSQL tool as the cluster's owner: initdb refuses to run as root.
+# Runs a PostgreSQL tool as the cluster's owner: initdb refuses to run as root, so root hands
+# the cluster to the postgres user; any other user owns and runs it directly.
+# From /, since postgres may not be allowed into the folder npm start was called from.
 pg_run() {
-  if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
+  if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi
 }
 
-# start_postgres DATA_DIR PORT DBNAME: creates the cluster on first use, starts it when
-# stopped, reuses it when already running; sets DATABASE_URL.
+# Where root keeps a checkout's cluster when the postgres user cannot enter the checkout.
+PG_ELSEWHERE_BASE=/var/lib/sheathwise
+
+# pg_elsewhere_dir: the folder for this checkout's cluster outside it, named after the
+# checkout's real path (folder name plus a hash) so that two clones never share one.
+pg_elsewhere_dir() {
+  local real name hash
+  real="$(cd "$ROOT" && pwd -P)"
+  name="$(printf '%s' "${real##*/}" | tr -c 'A-Za-z0-9._-' '_' | cut -c1-40)"
+  hash="$(printf '%s' "$real" | sha256sum | cut -c1-12)"
+  echo "$PG_ELSEWHERE_BASE/$name-$hash"
+}
+
+# choose_pg_dir: sets PG_DIR to this checkout's cluster folder and says where it is. It is
+# .data/pg, except as root when the postgres user cannot pass through the checkout's folders
+# (a private parent such as /root or one made by mktemp -d): then only the cluster lives in
+# pg_elsewhere_dir, and .data/pg-location names it. The user's folders keep their permissions.
+choose_pg_dir() {
+  ensure_postgres_binaries
+  mkdir -p "$ROOT/.data"
+  local elsewhere
+  elsewhere="$(pg_elsewhere_dir)"
+  if [ "$(id -u)" != 0 ]; then
+    PG_DIR="$ROOT/.data/pg"
+    log "database cluster: $PG_DIR (run as $(id -un))"
+  elif [ ! -f "$elsewhere/pg/PG_VERSION" ] && runuser -u postgres -- test -x "$ROOT/.data"; then
+    PG_DIR="$ROOT/.data/pg"
+    rm -f "$ROOT/.data/pg-location"
+    log "database cluster: $PG_DIR (run as postgres)"
+  else
+    # Our own folders: made traversable for postgres, the cluster itself private to it.
+    install -d -m 755 "$PG_ELSEWHERE_BASE" "$elsewhere"
+    install -d -o postgres -g postgres -m 700 "$elsewhere/pg"
+    if ! runuser -u postgres -- test -w "$elsewhere/pg"; then
+      log "the postgres user cannot write to $elsewhere/pg: check the permissions of $PG_ELSEWHERE_BASE"
+      return 1
+    fi
+    printf '%s\n' "$ROOT" >"$elsewhere/checkout"
+    printf '%s\n' "$elsewhere" >"$ROOT/.data/pg-location"
+    PG_DIR="$elsewhere/pg"
+    if runuser -u postgres -- test -x "$ROOT/.data"; then
+      log "database cluster: $PG_DIR (run as postgres), made when the postgres user could not enter"
+      log "this checkout, and kept for it (delete with: rm -rf $elsewhere)"
+    else
+      log "the postgres user cannot enter $ROOT (a parent folder is private), so the database"
+      log "cluster of this checkout is kept in $PG_DIR (run as postgres; delete with: rm -rf $elsewhere)"
+    fi
+    if [ -f "$ROOT/.data/pg/PG_VERSION" ]; then
+      log "an older cluster in $ROOT/.data/pg cannot be reached and is left as it is"
+    fi
+  fi
+}
+
+# pg_running DATA_DIR: whether the cluster in DATA_DIR is up.
+pg_running() {
+  [ -f "$1/PG_VERSION" ] && pg_run "$PG_BIN/pg_ctl" -D "$1" status >/dev/null 2>&1
+}
+
+# start_postgres DATA_DIR PORT DBNAME [PORT_VARIABLE]: creates the cluster on first use, starts
+# it when stopped, reuses it when already running; sets DATABASE_URL.
 start_postgres() {
-  local data="$1" port="$2" dbname="$3"
+  local data="$1" port="$2" dbname="$3" port_var="${4:-}"
   ensure_postgres_binaries
   mkdir -p "$data"
   if [ "$(id -u)" = 0 ]; then chown postgres: "$data"; chmod 700 "$data"; fi
@@ -61,21 +121,27 @@ start_postgres() {
     log "creating PostgreSQL cluster in $data"
     pg_run "$PG_BIN/initdb" -D "$data" -U app --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null
   fi
-  if pg_run "$PG_BIN/pg_ctl" -D "$data" status >/dev/null 2>&1; then
+  if pg_running "$data"; then
+    # The running cluster keeps the port it was started with (line 4 of postmaster.pid).
+    port="$(sed -n 4p "$data/postmaster.pid")"
     log "PostgreSQL already running on 127.0.0.1:$port (reused)"
     PG_OWNED=0
   else
     if port_in_use "$port"; then
-      log "port $port is taken by another program: choose another with the PG port variable in README.md"
+      log "port $port (PostgreSQL) is taken by another program: $(port_advice "$port" "$port_var")"
       return 1
     fi
+    # The socket sits in the cluster folder; a Unix socket path is limited to 107 bytes, so a
+    # deeply placed checkout goes without one (every client here connects over TCP).
+    local socket_dir="$data"
+    [ "${#data}" -le 80 ] || socket_dir="''"
     pg_run "$PG_BIN/pg_ctl" -D "$data" -l "$data/server.log" \
-      -o "-c listen_addresses=127.0.0.1 -p $port -k $data" -w start >/dev/null
+      -o "-c listen_addresses=127.0.0.1 -p $port -k $socket_dir" -w start >/dev/null
     log "PostgreSQL started on 127.0.0.1:$port"
     PG_OWNED=1
   fi
   PG_DATA="$data"
-  "$PG_BIN/psql" -h 127.0.0.1 -p "$port" -U app -d postgres -tAc \
+  "$PG_BIN/psql" -X -h 127.0.0.1 -p "$port" -U app -d postgres -tAc \
     "select 1 from pg_database where datname = '$dbname'" | grep -q 1 ||
     "$PG_BIN/createdb" -h 127.0.0.1 -p "$port" -U app "$dbname"
   export DATABASE_URL="postgres://app@127.0.0.1:$port/$dbname"
@@ -91,6 +157,8 @@ stop_postgres() {
 # start_maildev SMTP_PORT WEB_PORT: the local mail catcher, loopback only.
 start_maildev() {
   local smtp="$1" web="$2"
+  # A catcher already on the port would answer the health check in our stead.
+  require_free_ports "mail SMTP:$smtp:" "mail inbox:$web:" || return 1
   "$ROOT/node_modules/.bin/maildev" --ip 127.0.0.1 --web-ip 127.0.0.1 -s "$smtp" -w "$web" --silent >"${MAILDEV_LOG:-/dev/null}" 2>&1 &
   MAILDEV_PID=$!
   STARTED_PIDS+=("$MAILDEV_PID")
@@ -102,6 +170,7 @@ start_maildev() {
 # start_s3 PORT DIRECTORY: the S3-compatible fake (s3rver) for uploaded files, loopback only.
 start_s3() {
   local port="$1" dir="$2"
+  require_free_ports "S3 fake:$port:" || return 1
   mkdir -p "$dir"
   node "$ROOT/scripts/s3-fake.mjs" "$port" "$dir" sheathwise-files >"${S3_LOG:-/dev/null}" 2>&1 &
   STARTED_PIDS+=("$!")
@@ -121,9 +190,18 @@ wait_for_url() {
   return 1
 }
 
+# exec_logged FILE COMMAND...: becomes COMMAND (so a kept PID is the command's), its output in
+# FILE, or in ours when FILE is empty. Reopening /dev/stdout instead would empty a file that
+# npm start's output is sent to, and with it the start-up log written so far.
+exec_logged() {
+  local file="$1"
+  shift
+  if [ -n "$file" ]; then exec "$@" >"$file" 2>&1; else exec "$@" 2>&1; fi
+}
+
 build_app() {
   log "building the app for port $SHEATHWISE_PORT"
-  (cd "$ROOT" && node_modules/.bin/astro build >"${BUILD_LOG:-/dev/stdout}" 2>&1) || { log "build failed"; return 1; }
+  (cd "$ROOT" && exec_logged "${BUILD_LOG:-}" node_modules/.bin/astro build) || { log "build failed"; return 1; }
 }
 
 # migrate_and_seed [--seed]: applies drizzle/ migrations, then the demo scenario once.
@@ -132,7 +210,7 @@ migrate_and_seed() {
 }
 
 start_server() {
-  HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/dist/server/entry.mjs" >"${SERVER_LOG:-/dev/stdout}" 2>&1 &
+  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/dist/server/entry.mjs" &
   SERVER_PID=$!
   STARTED_PIDS+=("$SERVER_PID")
   wait_for_url "http://127.0.0.1:$SHEATHWISE_PORT/signin" 60 || { log "server did not answer"; return 1; }
@@ -149,4 +227,38 @@ stop_started() {
 
 port_in_use() {
   (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null
+}
+
+# port_advice PORT [VARIABLE]: how to move a service off a taken port, with a free one nearby.
+port_advice() {
+  local port="$1" var="${2:-}" free
+  for ((free = port + 1; free < port + 200 && free < 65536; free++)); do
+    port_in_use "$free" || break
+  done
+  if [ -n "$var" ]; then
+    echo "choose another with $var (e.g. $var=$free; port $free is free now)"
+  else
+    echo "choose another port (port $free is free now; see \"What runs where\" in README.md)"
+  fi
+}
+
+# require_free_ports LABEL:PORT:VARIABLE ...: checks every port before anything starts, names
+# each one that is taken or given twice, and the variable that moves it; fails if any is.
+require_free_ports() {
+  local spec label port var seen=" " status=0
+  for spec in "$@"; do
+    IFS=: read -r label port var <<<"$spec"
+    if [[ ! "$port" =~ ^[0-9]+$ ]] || ((port < 1 || port > 65535)); then
+      log "port \"$port\" ($label) is not a port number${var:+: set $var to a number from 1024 to 65535}"
+      status=1
+    elif [[ "$seen" == *" $port "* ]]; then
+      log "port $port ($label) is given to two services${var:+: set $var to another port}"
+      status=1
+    elif port_in_use "$port"; then
+      log "port $port ($label) is taken by another program: $(port_advice "$port" "$var")"
+      status=1
+    fi
+    seen+="$port "
+  done
+  return "$status"
 }
