@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import pg from 'pg';
+import { type AddressInfo, createServer } from 'node:net';
 import { MailDev } from 'maildev';
 import { createDatabase } from '../../src/lib/db/client';
 import { migrateDatabase } from '../../src/lib/db/migrate';
@@ -13,9 +14,20 @@ import { caughtMail, waitForMail } from '../helpers/maildev-client';
 // that the server's worker does not take these jobs. The SMTP server is down when the message
 // is queued and comes back later.
 
-const SMTP_PORT = 1191;
-const WEB_PORT = 1192;
+// Ports of this test's own catcher: free ones, never the suite's (which any port settings may move).
+let SMTP_PORT = 0;
+let WEB_PORT = 0;
 const name = `mail_outage_${process.pid}`;
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer().listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as AddressInfo;
+      server.close(() => resolve(port));
+    });
+    server.on('error', reject);
+  });
+}
 
 async function startMaildev(): Promise<{ close: () => Promise<void> }> {
   const maildev = new MailDev({ smtp: SMTP_PORT, web: WEB_PORT, ip: '127.0.0.1', webIp: '127.0.0.1', silent: true });
@@ -30,6 +42,7 @@ describe('e-mail survives an SMTP outage', () => {
   let handle: ReturnType<typeof createDatabase>;
 
   beforeAll(async () => {
+    [SMTP_PORT, WEB_PORT] = [await freePort(), await freePort()];
     await admin.connect();
     await admin.query(`drop database if exists ${name} with (force)`);
     await admin.query(`create database ${name}`);
