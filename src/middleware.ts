@@ -1,15 +1,17 @@
-import { defineMiddleware } from 'astro:middleware';
+import { defineMiddleware, sequence } from 'astro:middleware';
 import { getSession } from 'auth-astro/server';
 import { database, services } from './lib/server/services.server';
-import { loadSessionUser } from './lib/db/users.repo';
 import { AppError } from './lib/errors';
 import { errorResponse } from './lib/server/http';
+import { securityHeaders } from './lib/server/security-headers';
+import { authRequestGuard } from './lib/auth/auth-request-guard';
+import { signedInUser } from './lib/auth/sessions';
 
 // Reachable without a session: sign-in, Auth.js's own routes, the health probe, accepting an
 // invitation (the link's token is the credential), static files.
 const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/api/invitations/accept', '/invitation/', '/_astro/', '/favicon'];
 
-export const onRequest = defineMiddleware(async (context, next) => {
+const appMiddleware = defineMiddleware(async (context, next) => {
   // The first request starts the mail worker, so queued messages go out without waiting for a workflow call.
   void services().catch((err) => console.error('[services]', err));
   const { pathname } = context.url;
@@ -17,8 +19,7 @@ export const onRequest = defineMiddleware(async (context, next) => {
   if (PUBLIC_PREFIXES.some((p) => pathname.startsWith(p))) return next();
 
   const session = await getSession(context.request);
-  const id = (session?.user as { id?: string } | undefined)?.id;
-  context.locals.user = id ? await loadSessionUser(database(), id) : null;
+  context.locals.user = await signedInUser(database(), session);
 
   if (!context.locals.user) {
     if (pathname.startsWith('/api/')) return errorResponse(new AppError('NotSignedIn'));
@@ -27,3 +28,6 @@ export const onRequest = defineMiddleware(async (context, next) => {
   }
   return next();
 });
+
+// Outermost first: headers on every answer, then Auth.js path checks and the client address.
+export const onRequest = sequence(securityHeaders, authRequestGuard, appMiddleware);
