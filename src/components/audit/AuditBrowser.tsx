@@ -28,7 +28,7 @@ interface ChainReport {
 }
 
 function ChainResult({ report }: { report: ChainReport }) {
-  if (report.ok) return <span className="font-semibold text-pass" data-testid="chain-result">Chain intact: {report.checked} events of yours verified, linked through the whole chain.</span>;
+  if (report.ok) return <span className="font-semibold text-pass" data-testid="chain-result">Chain intact: the whole chain links up, and the {report.checked} events you may see match their hashes.</span>;
   return (
     <span className="font-semibold text-fail" data-testid="chain-result">
       {report.firstBroken && <>Broken at event {report.firstBroken.id}: {report.firstBroken.reason}. </>}
