@@ -1,9 +1,11 @@
-import { defineMiddleware } from 'astro:middleware';
+import { defineMiddleware, sequence } from 'astro:middleware';
 import { getSession } from 'auth-astro/server';
 import { database, services } from './lib/server/services.server';
-import { loadSessionUser } from './lib/db/users.repo';
 import { AppError } from './lib/errors';
 import { errorResponse } from './lib/server/http';
+import { securityHeaders } from './lib/server/security-headers';
+import { authRequestGuard } from './lib/auth/auth-request-guard';
+import { signedInUser } from './lib/auth/sessions';
 
 // Reachable without a session: sign-in, Auth.js's own routes, the health probe, accepting an
 // invitation (the link's token is the credential), static files.
@@ -11,7 +13,7 @@ const PUBLIC_PREFIXES = ['/signin', '/api/auth/', '/api/health', '/api/invitatio
 
 const UNAVAILABLE_PAGE = '<!doctype html><meta charset="utf-8"><title>Sheathwise is unavailable</title><meta http-equiv="refresh" content="10"><p>Sheathwise cannot reach its database at the moment. Nothing was lost; this page tries again every 10 seconds.</p>';
 
-export const onRequest = defineMiddleware(async (context, next) => {
+const appMiddleware = defineMiddleware(async (context, next) => {
   // The first request starts the mail worker, so queued messages go out without waiting for a workflow call.
   void services().catch((err) => console.error('[services]', err));
   const { pathname } = context.url;
@@ -19,9 +21,8 @@ export const onRequest = defineMiddleware(async (context, next) => {
   if (PUBLIC_PREFIXES.some((p) => pathname.startsWith(p))) return next();
 
   const session = await getSession(context.request);
-  const id = (session?.user as { id?: string } | undefined)?.id;
   try {
-    context.locals.user = id ? await loadSessionUser(database(), id) : null;
+    context.locals.user = await signedInUser(database(), session);
   } catch (err) {
     // The database is down: say so (503 with Retry-After) rather than fail with a bare 500.
     const response = errorResponse(err);
@@ -36,3 +37,6 @@ export const onRequest = defineMiddleware(async (context, next) => {
   }
   return next();
 });
+
+// Outermost first: headers on every answer, then Auth.js path checks and the client address.
+export const onRequest = sequence(securityHeaders, authRequestGuard, appMiddleware);

@@ -4,13 +4,20 @@ import path from 'node:path';
 import type { HttpSession } from '../helpers/http-session';
 import { type DemoRole, currentVersion, demoIds, demoSessions, drive, fixtureInputs, json, readyDraft, send, uploadForm } from '../helpers/workflow-api';
 
-// Every endpoint, called by every demo role: the roles allowed succeed, the others get 403.
-// Requests that change state are built per role so that an allowed call has something valid to
-// act on. The last test fails when an endpoint exists that this matrix does not list.
+import { makeOutsider } from './outsider.fixture';
 
-const ROLES: DemoRole[] = ['designer', 'checker', 'approver', 'auditor', 'admin'];
-const READERS: DemoRole[] = ['designer', 'checker', 'approver', 'auditor'];
-const PARTICIPANTS: DemoRole[] = ['designer', 'checker', 'approver'];
+// Every endpoint, called by every demo role and by an outsider (every project role, but only in
+// another project): the roles allowed succeed, the others get 403. Requests that change state
+// are built per role so that an allowed call has something valid to act on. Whatever the
+// outsider is allowed must not mention the demo project. The last test fails when an endpoint
+// exists that this matrix does not list.
+
+type Role = DemoRole | 'outsider';
+const ROLES: Role[] = ['designer', 'checker', 'approver', 'auditor', 'admin', 'outsider'];
+const READERS: Role[] = ['designer', 'checker', 'approver', 'auditor'];
+const PARTICIPANTS: Role[] = ['designer', 'checker', 'approver'];
+// The audit trail: auditors and administrators, each within their scope (audit-scope.test.ts).
+const AUDIT_READERS: Role[] = ['auditor', 'admin', 'outsider'];
 
 interface Fixture {
   projectId: string;
@@ -29,9 +36,9 @@ interface Fixture {
   measurementsId: string;
 }
 
-type Call = (f: Fixture, role: DemoRole) => { method: string; path: string; body?: unknown };
+type Call = (f: Fixture, role: Role) => { method: string; path: string; body?: unknown };
 
-const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: Call }> = [
+const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call }> = [
   { route: 'GET /api/me', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/me' }) },
   { route: 'GET /api/projects', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/projects' }) },
   { route: 'GET /api/limit-sets', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/limit-sets' }) },
@@ -84,13 +91,13 @@ const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: 
     status: 201,
     call: () => ({ method: 'POST', path: '/api/admin/cable-types', body: { id: `M${Date.now() % 1000000}`, name: 'Matrix cable', conductorResistanceOhmPerKm: 0.05, conductorGmrMm: 10, sheathMeanDiameterMm: 80, sheathResistanceOhmPerKm: 0.1, oversheathThicknessMm: 4, overallDiameterMm: 90, oversheathWithstandKv: 20 } }),
   },
-  { route: 'GET /api/audit', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit?pageSize=5' }) },
-  { route: 'GET /api/audit/facets', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/facets' }) },
+  { route: 'GET /api/audit', allowed: AUDIT_READERS, status: 200, call: () => ({ method: 'GET', path: '/api/audit?pageSize=5' }) },
+  { route: 'GET /api/audit/facets', allowed: AUDIT_READERS, status: 200, call: () => ({ method: 'GET', path: '/api/audit/facets' }) },
   { route: 'GET /api/me/queue', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/me/queue' }) },
   { route: 'GET /api/revisions/[revisionId]/history', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/history` }) },
   { route: 'GET /api/admin/projects/[projectId]/members', allowed: ['admin'], status: 200, call: (f) => ({ method: 'GET', path: `/api/admin/projects/${f.projectId}/members` }) },
-  { route: 'GET /api/audit/verify', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/verify' }) },
-  { route: 'GET /api/audit/export', allowed: ['auditor'], status: 200, call: () => ({ method: 'GET', path: '/api/audit/export?type=revision.issue' }) },
+  { route: 'GET /api/audit/verify', allowed: AUDIT_READERS, status: 200, call: () => ({ method: 'GET', path: '/api/audit/verify' }) },
+  { route: 'GET /api/audit/export', allowed: AUDIT_READERS, status: 200, call: () => ({ method: 'GET', path: '/api/audit/export?type=revision.issue' }) },
   { route: 'POST /api/admin/invitations', allowed: ['admin'], status: 201, call: (_f, role) => ({ method: 'POST', path: '/api/admin/invitations', body: { email: `matrix-${role}-${Date.now()}@sheathwise.example`, name: 'Matrix Invitee' } }) },
   { route: 'POST /api/admin/projects/[projectId]/members', allowed: ['admin'], status: 201, call: (f) => ({ method: 'POST', path: `/api/admin/projects/${f.projectId}/members`, body: { userId: f.userId, role: 'auditor' } }) },
   { route: 'DELETE /api/admin/projects/[projectId]/members', allowed: ['admin'], status: 200, call: (f) => ({ method: 'DELETE', path: `/api/admin/projects/${f.projectId}/members`, body: { userId: f.userId, role: 'auditor' } }) },
@@ -106,11 +113,11 @@ const matrix: Array<{ route: string; allowed: DemoRole[]; status: number; call: 
 const PUBLIC = ['GET /api/health', 'POST /api/invitations/accept'];
 
 describe('role × endpoint matrix', () => {
-  let sessions: Record<DemoRole, HttpSession>;
+  let sessions: Record<Role, HttpSession>;
   let f: Fixture;
 
   beforeAll(async () => {
-    sessions = await demoSessions();
+    sessions = { ...(await demoSessions()), outsider: (await makeOutsider()).session };
     const { projectId, limitSetId } = await demoIds(sessions.designer);
     const issued = await readyDraft(sessions.designer);
     await drive(sessions, issued.revisionId, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass'], ['approver', 'issue']]);
@@ -143,7 +150,10 @@ describe('role × endpoint matrix', () => {
           ? { ...body, version: await currentVersion(sessions.designer, revisionId) }
           : body;
         const res = await send(sessions[role], method, path, withVersion);
-        if (entry.allowed.includes(role)) expect(res.status, `${role}: ${await res.clone().text()}`).toBe(entry.status);
+        if (entry.allowed.includes(role)) {
+          expect(res.status, `${role}: ${await res.clone().text()}`).toBe(entry.status);
+          if (role === 'outsider') expect(await res.text(), 'the outsider sees nothing of the demo project').not.toContain(f.projectId);
+        }
         else {
           expect(res.status, `${role} should be refused`).toBe(403);
           expect((await res.json()).error).toBe('Forbidden');

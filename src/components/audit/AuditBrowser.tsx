@@ -20,12 +20,29 @@ const columns = [
   column.accessor('detail', { header: 'Detail', cell: (c) => <code className="block max-w-md truncate text-xs" title={JSON.stringify(c.getValue())}>{JSON.stringify(c.getValue())}</code> }),
 ];
 
+interface ChainReport {
+  ok: boolean;
+  checked: number;
+  firstBroken?: { id: number; reason: string };
+  brokenOutsideScope?: true;
+}
+
+function ChainResult({ report }: { report: ChainReport }) {
+  if (report.ok) return <span className="font-semibold text-pass" data-testid="chain-result">Chain intact: the whole chain links up, and the {report.checked} events you may see match their hashes.</span>;
+  return (
+    <span className="font-semibold text-fail" data-testid="chain-result">
+      {report.firstBroken && <>Broken at event {report.firstBroken.id}: {report.firstBroken.reason}. </>}
+      {report.brokenOutsideScope && <>The chain is {report.firstBroken ? 'also ' : ''}broken at an event outside your projects, which may hide a removed event of yours; an administrator can locate it.</>}
+    </span>
+  );
+}
+
 function AuditBrowser() {
   const [filters, setFilters] = useState<AuditFilters>({});
   const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 20 });
   const facets = useQuery(auditFacetsQuery());
   const { data, isPending, error } = useQuery(auditQuery(filters, pagination.pageIndex, pagination.pageSize));
-  const verify = useMutation({ mutationFn: () => api<{ ok: boolean; checked: number; firstBroken?: { id: number; reason: string } }>('/api/audit/verify') });
+  const verify = useMutation({ mutationFn: () => api<ChainReport>('/api/audit/verify') });
   const table = useReactTable({ data: data?.events ?? [], columns, getCoreRowModel: getCoreRowModel(), manualPagination: true, rowCount: data?.total ?? 0, state: { pagination }, onPaginationChange: setPagination });
   const set = (k: keyof AuditFilters, v: string) => {
     setFilters((f) => ({ ...f, [k]: v || undefined }));
@@ -38,9 +55,7 @@ function AuditBrowser() {
     <div className="space-y-3">
       <div className="flex flex-wrap items-center gap-3 rounded border border-rule bg-panel p-3">
         <Button onClick={() => verify.mutate()} disabled={verify.isPending}>{verify.isPending ? 'Verifying…' : 'Verify the chain'}</Button>
-        {verify.data && (verify.data.ok
-          ? <span className="font-semibold text-pass" data-testid="chain-result">Chain intact: {verify.data.checked} events verified.</span>
-          : <span className="font-semibold text-fail" data-testid="chain-result">Broken at event {verify.data.firstBroken!.id}: {verify.data.firstBroken!.reason}.</span>)}
+        {verify.data && <ChainResult report={verify.data} />}
         <a className="ml-auto text-sm text-copper underline" href={exportHref}>Export these events as CSV</a>
       </div>
       <div className="flex flex-wrap gap-3 text-sm">

@@ -1,3 +1,4 @@
+import './zod-jitless';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';

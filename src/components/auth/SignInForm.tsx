@@ -1,3 +1,4 @@
+import './zod-jitless';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -5,7 +6,9 @@ import { signIn } from 'auth-astro/client';
 import { signInSchema, type SignInInput } from '../../lib/schemas/sign-in.schema';
 
 const MESSAGES: Record<string, string> = {
-  locked: 'Too many wrong passwords: this account is locked for a few minutes. Try again later or ask an administrator.',
+  // Worded so that it tells no more than a wrong password does: not whether the account exists,
+  // and not whether this password was right. Unknown e-mails lock just like real ones.
+  locked: 'Signing in with this e-mail, or from this network, is paused after too many failed attempts. Try again in a few minutes. If it is your account, look in your e-mail for a link that unlocks it.',
   credentials: 'That e-mail and password do not match an account. Check both and try again.',
 };
 

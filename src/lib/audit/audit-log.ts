@@ -2,6 +2,7 @@ import { and, asc, desc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { auditEvents, users, type AuditEvent } from '../db/schema';
 import { canonicalJson, sha256Hex } from '../canonical-json';
+import { inScope, scopeCondition, type AuditScope } from './audit-scope';
 
 const GENESIS = 'genesis';
 // Appends take this transaction-scoped lock so that two writers cannot both chain onto the same
@@ -43,26 +44,44 @@ export async function appendAudit(tx: Database, entry: AuditEntry): Promise<void
 }
 
 export interface ChainReport {
+  /** The whole chain, every project's events included, is intact. */
   ok: boolean;
+  /** Events inside the caller's scope that were verified. */
   checked: number;
+  /** The first broken event inside the caller's scope. */
   firstBroken?: { id: number; reason: string };
+  /** A break was found at an event outside the caller's scope (not named: it is not theirs to see). */
+  brokenOutsideScope?: true;
 }
 
-/** Recomputes the chain from the first event; reports the first event whose link or content does not match. */
-export async function verifyAuditChain(db: Database): Promise<ChainReport> {
+const REASONS = {
+  link: 'it does not point at the event before it (an event was removed or reordered)',
+  content: 'its content no longer matches its hash (the event was changed)',
+};
+
+/**
+ * Recomputes the whole chain from the first event: the links run across projects, so a removed
+ * event of one project shows up as a broken link at whatever event follows it. Each event is
+ * checked against the stored hash of the one before it, so checking carries on past a break and
+ * every broken event is found. The report names only events inside the caller's scope; a break
+ * elsewhere is reported as such, without its id.
+ */
+export async function verifyAuditChain(db: Database, scope: AuditScope): Promise<ChainReport> {
   const rows = await db.select().from(auditEvents).orderBy(asc(auditEvents.id));
   let prev = GENESIS;
-  for (const [i, row] of rows.entries()) {
-    if (row.prevHash !== prev) {
-      return { ok: false, checked: i, firstBroken: { id: row.id, reason: 'it does not point at the event before it (an event was removed or reordered)' } };
-    }
-    const expected = eventHash(row);
-    if (row.hash !== expected) {
-      return { ok: false, checked: i, firstBroken: { id: row.id, reason: 'its content no longer matches its hash (the event was changed)' } };
-    }
+  let checked = 0;
+  let firstBroken: ChainReport['firstBroken'];
+  let brokenOutsideScope = false;
+  for (const row of rows) {
+    const reason = row.prevHash !== prev ? REASONS.link : row.hash !== eventHash(row) ? REASONS.content : null;
+    const visible = inScope(scope, row);
+    if (visible) checked++;
+    if (reason && visible) firstBroken ??= { id: row.id, reason };
+    if (reason && !visible) brokenOutsideScope = true;
     prev = row.hash;
   }
-  return { ok: true, checked: rows.length };
+  const ok = !firstBroken && !brokenOutsideScope;
+  return { ok, checked, ...(firstBroken ? { firstBroken } : {}), ...(brokenOutsideScope ? { brokenOutsideScope: true as const } : {}) };
 }
 
 export interface AuditFilter {
@@ -75,8 +94,9 @@ export interface AuditFilter {
   to?: Date;
 }
 
-function whereOf(f: AuditFilter): SQL | undefined {
+function whereOf(scope: AuditScope, f: AuditFilter): SQL | undefined {
   return and(
+    scopeCondition(scope),
     f.projectId ? eq(auditEvents.projectId, f.projectId) : undefined,
     f.studyId ? eq(auditEvents.studyId, f.studyId) : undefined,
     f.revisionId ? eq(auditEvents.revisionId, f.revisionId) : undefined,
@@ -87,9 +107,9 @@ function whereOf(f: AuditFilter): SQL | undefined {
   );
 }
 
-/** A page of events, newest first. */
-export async function listAuditEvents(db: Database, filter: AuditFilter, page: number, pageSize: number) {
-  const where = whereOf(filter);
+/** A page of the events in scope, newest first. */
+export async function listAuditEvents(db: Database, scope: AuditScope, filter: AuditFilter, page: number, pageSize: number) {
+  const where = whereOf(scope, filter);
   const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(auditEvents).where(where);
   const rows = await db
     .select({ event: auditEvents, actorName: users.name })
@@ -102,19 +122,24 @@ export async function listAuditEvents(db: Database, filter: AuditFilter, page: n
   return { total, events: rows.map((r) => ({ ...r.event, actorName: r.actorName })) };
 }
 
-/** The people who appear in the trail, for the person filter. */
-export async function auditActors(db: Database) {
-  return db.selectDistinct({ id: users.id, name: users.name }).from(auditEvents).innerJoin(users, eq(users.id, auditEvents.actorId)).orderBy(users.name);
+/** The people who appear in the events in scope, for the person filter. */
+export async function auditActors(db: Database, scope: AuditScope) {
+  return db
+    .selectDistinct({ id: users.id, name: users.name })
+    .from(auditEvents)
+    .innerJoin(users, eq(users.id, auditEvents.actorId))
+    .where(scopeCondition(scope))
+    .orderBy(users.name);
 }
 
-/** The event types that appear in the trail, for the type filter. */
-export async function auditTypes(db: Database): Promise<string[]> {
-  return (await db.selectDistinct({ type: auditEvents.type }).from(auditEvents).orderBy(auditEvents.type)).map((r) => r.type);
+/** The event types that appear in the events in scope, for the type filter. */
+export async function auditTypes(db: Database, scope: AuditScope): Promise<string[]> {
+  return (await db.selectDistinct({ type: auditEvents.type }).from(auditEvents).where(scopeCondition(scope)).orderBy(auditEvents.type)).map((r) => r.type);
 }
 
-/** Every matching event as CSV, oldest first (RFC 4180 quoting). */
-export async function exportAuditCsv(db: Database, filter: AuditFilter): Promise<string> {
-  const rows = await db.select().from(auditEvents).where(whereOf(filter)).orderBy(asc(auditEvents.id));
+/** Every matching event in scope as CSV, oldest first (RFC 4180 quoting). */
+export async function exportAuditCsv(db: Database, scope: AuditScope, filter: AuditFilter): Promise<string> {
+  const rows = await db.select().from(auditEvents).where(whereOf(scope, filter)).orderBy(asc(auditEvents.id));
   const header = ['id', 'at', 'actor_id', 'type', 'project_id', 'study_id', 'revision_id', 'detail', 'prev_hash', 'hash'];
   const cell = (v: unknown) => {
     const s = v === null || v === undefined ? '' : typeof v === 'string' ? v : JSON.stringify(v);

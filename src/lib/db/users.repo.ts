@@ -19,22 +19,6 @@ export async function loadSessionUser(db: Database, id: string): Promise<Session
   return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, projectRoles };
 }
 
-export async function recordFailedSignIn(db: Database, id: string, maxFailures: number, lockSeconds: number) {
-  // One statement, so concurrent failures cannot undercount.
-  await db
-    .update(users)
-    .set({
-      failedSignIns: sql`${users.failedSignIns} + 1`,
-      lockedUntil: sql`case when ${users.failedSignIns} + 1 >= ${maxFailures}
-        then now() + make_interval(secs => ${lockSeconds}) else ${users.lockedUntil} end`,
-    })
-    .where(eq(users.id, id));
-}
-
-export async function clearFailedSignIns(db: Database, id: string) {
-  await db.update(users).set({ failedSignIns: 0, lockedUntil: null }).where(eq(users.id, id));
-}
-
 /** Users for the admin screen, without password data. */
 export async function listUsers(db: Database) {
   return db
