@@ -12,7 +12,8 @@ import { manualItemSchema } from '../schemas/manual-item.schema';
 import { jsonDiff } from '../json-diff';
 
 export const limitSetVersionSchema = z.object({
-  limits: limitSetSchema.shape.limits,
+  // A version without limits would let every computed check through as "no limit".
+  limits: limitSetSchema.shape.limits.refine((l) => Object.keys(l).length > 0, 'Give at least one limit: a limit set without limits cannot be published.'),
   manualItems: z.array(manualItemSchema),
   checkTolerancePct: z.number().positive('The tolerance must be above zero.').max(50),
 });

@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import type { Database } from './client';
 import { memberships, users, type User } from './schema';
 import type { SessionUser } from '../auth/roles';

@@ -2,7 +2,7 @@ import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
-import { checklistItems, remarks, revisions, studies } from '../db/schema';
+import { checklistItems, limitSets, remarks, revisions, studies } from '../db/schema';
 import { inTransaction } from '../db/transaction';
 import { withLockedRevision } from '../db/revision-lock';
 import { appendAudit } from '../audit/audit-log';
@@ -27,9 +27,17 @@ export interface NewStudy {
 export async function createStudy(s: AppServices, actor: SessionUser, projectId: string, input: NewStudy) {
   const inputs = parseStudyInputs(input.inputs, input.kind);
   return inTransaction(s.pool, async (tx) => {
+    const [limitSet] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.id, input.limitSetId));
+    if (!limitSet) throw new AppError('InvalidInput', undefined, [{ field: 'limitSetId', message: 'There is no limit set with this id: choose one from the list.' }]);
     const [clash] = await tx.select({ id: studies.id }).from(studies).where(and(eq(studies.projectId, projectId), eq(studies.code, input.code)));
     if (clash) throw new AppError('InvalidInput', undefined, [{ field: 'code', message: `Code ${input.code} is already used in this project.` }]);
-    const [study] = await tx.insert(studies).values({ projectId, code: input.code, title: input.title, kind: input.kind, limitSetId: input.limitSetId, createdBy: actor.id }).returning();
+    // Two people creating the same code at once: the unique key decides, and the loser is told why.
+    const [study] = await tx
+      .insert(studies)
+      .values({ projectId, code: input.code, title: input.title, kind: input.kind, limitSetId: input.limitSetId, createdBy: actor.id })
+      .onConflictDoNothing()
+      .returning();
+    if (!study) throw new AppError('Conflict', `Code ${input.code} was taken in this project a moment ago: choose another.`, [{ field: 'code', message: `Code ${input.code} is already used in this project.` }]);
     const [revision] = await tx
       .insert(revisions)
       .values({ studyId: study.id, number: 1, machineVersion: REVISION_MACHINE_VERSION, inputs, inputsHash: inputsHash(inputs), designerId: actor.id })
@@ -116,10 +124,14 @@ export async function startNewRevision(s: AppServices, actor: SessionUser, study
     const open = all.find((r) => OPEN_STATES.includes(r.state));
     if (open) throw new AppError('StepRefused', `Revision ${open.number} is still ${open.state.replace(/_/g, ' ')}: finish or withdraw it first.`);
     const latest = all[0];
+    // A second request in the same moment cannot see the first one's new row: the unique key
+    // (study, number) refuses it, and the person is told what happened.
     const [revision] = await tx
       .insert(revisions)
       .values({ studyId, number: latest.number + 1, machineVersion: REVISION_MACHINE_VERSION, inputs: latest.inputs, inputsHash: latest.inputsHash, designerId: actor.id, basedOnId: latest.id })
+      .onConflictDoNothing()
       .returning();
+    if (!revision) throw new AppError('Conflict', `Revision ${latest.number + 1} was started by someone else a moment ago: reload the study.`);
     await appendAudit(tx, { actorId: actor.id, type: 'revision.created', projectId: study.projectId, studyId, revisionId: revision.id, detail: { number: revision.number, basedOn: latest.number } });
     return revision;
   });
