@@ -2,6 +2,7 @@ import type { BondingStudy } from '../schemas/bonding-study.schema';
 import type { CriterionKey, LimitSet } from '../schemas/limit-set.schema';
 import type { BondingResults, CaseResult } from './bonding/results';
 import type { ExposureResults } from './exposure/solve-exposure';
+import { oversheathVoltages, standingVoltages } from './bonding/worst-values';
 
 export type ChecklistStatus = 'pass' | 'fail' | 'no-limit';
 
@@ -37,25 +38,26 @@ export function evaluateBondingCompliance(study: BondingStudy, results: BondingR
   };
 
   for (const c of results.cases) {
-    const isFault = c.kind === 'three-phase-fault' || c.kind === 'earth-fault';
-    if (c.kind === 'normal') fromSet('standing-voltage-normal', 'Standing voltage at link boxes and open ends, normal load', c, worstPoint(c));
-    if (c.kind === 'emergency') fromSet('standing-voltage-emergency', 'Standing voltage at link boxes and open ends, emergency load', c, worstPoint(c));
+    const isFault = c.kind !== 'normal' && c.kind !== 'emergency';
+    // Standing voltage: what a person at the box, or an SVL to earth, sees — sheath to the local earth.
+    if (c.kind === 'normal') fromSet('standing-voltage-normal', 'Standing voltage at link boxes and open ends to the local earth, normal load', c, maxOf(standingVoltages(c)));
+    if (c.kind === 'emergency') fromSet('standing-voltage-emergency', 'Standing voltage at link boxes and open ends to the local earth, emergency load', c, maxOf(standingVoltages(c)));
     if (c.kind === 'normal' && c.lossFactors.length) {
       fromSet('loss-factor', 'Sheath loss factor against the rating assumption', c, maxOf(c.lossFactors.map((l) => ({ value: l.lossFactor, where: `cable ${l.cable}` }))), '');
     }
     if (isFault) {
       const joints = c.points.flatMap((p) => p.acrossJoint.map((a) => ({ value: a.voltageV, where: `${p.label}, cable ${a.cable}` })));
-      if (joints.length) fromSet('joint-voltage-fault', 'Voltage across sectionalising insulation during the through fault', c, maxOf(joints));
+      if (joints.length) fromSet('joint-voltage-fault', 'Voltage across the sectionalising insulation (sheath end to sheath end) during the fault', c, maxOf(joints));
       if (c.eccCurrents.length) {
         fromSet('ecc-current-fault', 'ECC current during the through fault', c, maxOf(c.eccCurrents.map((e) => ({ value: e.maxA, where: `ECC ${e.eccId}` }))), 'A');
       }
       const withstandV = Math.min(...study.cableTypes.map((t) => t.oversheathWithstandKv * 1000));
-      items.push(item('oversheath-fault', 'Sheath voltage to earth against the oversheath withstand', c.caseId, worstPoint(c), withstandV, 'V', 'cable type data: oversheath power-frequency withstand'));
+      items.push(item('oversheath-fault', 'Sheath voltage to the surrounding earth (the larger of to remote and to local earth) against the oversheath withstand', c.caseId, maxOf(oversheathVoltages(c)), withstandV, 'V', 'cable type data: oversheath power-frequency withstand'));
     }
     for (const svl of study.svls.map((_, i) => i)) {
       const stressed = c.svls.filter((s) => s.svlIndex === svl);
       if (!stressed.length) continue;
-      const worst = maxOf(stressed.map((s) => ({ value: s.voltageV, where: `SVL at joint ${s.jointIndex}, cable ${s.cable}` })));
+      const worst = maxOf(stressed.map((s) => ({ value: s.voltageV, where: `SVL at joint ${s.jointIndex}, cable ${s.cable}, ${s.terminals}` })));
       const spec = study.svls[svl];
       const rated = isFault
         ? item('svl-tov', `SVL ${svl + 1}: voltage during the fault against its temporary-overvoltage capability`, c.caseId, worst, spec.tovRatingV, 'V', "SVL maker's rating entered in the study")
@@ -110,10 +112,6 @@ const source = (limits: LimitSet, key: CriterionKey) => {
   const limit = limits.limits[key];
   return limit ? `${limits.name} v${limits.version}: ${limit.source}` : `no value in ${limits.name}`;
 };
-
-function worstPoint(c: CaseResult): Worst {
-  return maxOf(c.points.flatMap((p) => p.sheathEnds.map((e) => ({ value: e.voltageV, where: `${p.label}, sheath ${e.cable}` }))));
-}
 
 function maxOf(values: Worst[]): Worst {
   return values.reduce((best, v) => (v.value > best.value ? v : best), values[0] ?? NO_VALUE);

@@ -5,11 +5,42 @@ import { checkBondingStudy } from '../calc/bonding/study-checks';
 // the stored JSON. Units are in the field names. Cross-field rules (geometry, topology) live
 // in the calculation core and are reported here field by field.
 
+/**
+ * Sizes the core accepts. Beyond them a study is refused with the field named, rather than
+ * solved for minutes or overflowing memory: 2,000 sections is more than ten times the longest
+ * jointed land route; 40 metallic conductors in a cross-section is four double-circuit routes
+ * with ECCs.
+ */
+export const STUDY_LIMITS = {
+  sections: 2000,
+  cases: 200,
+  /** Sheaths (three per circuit) and ECCs together in one cross-section. */
+  conductors: 40,
+  circuits: 13,
+  eccs: 10,
+  cableTypes: 50,
+  layouts: 200,
+  svls: 2001,
+  overrides: 2001,
+  /** Shortest section: below a millimetre a length is a typing error, not a cable. */
+  minSectionLengthM: 0.001,
+  /** Longest section and route: above the longest cable routes built (some 760 km; from memory). */
+  maxRouteLengthM: 1_000_000,
+  /** Largest current in any case: above any power-system fault level (common practice). */
+  maxCurrentA: 500_000,
+  /** Earth resistances the solve stays well conditioned for. */
+  minEarthOhm: 0.001,
+  maxEarthOhm: 1_000_000,
+} as const;
+
+const L = STUDY_LIMITS;
+const atMost = (n: number, what: string) => `At most ${n} ${what}; split the study.`;
+
 const id = z.string().trim().min(1, 'Give an identifier.').max(40);
 const positive = (what: string) => z.number({ error: `${what} must be a number.` }).positive(`${what} must be greater than zero.`);
 const nonNegative = (what: string) => z.number({ error: `${what} must be a number.` }).nonnegative(`${what} cannot be negative.`);
 
-export const cableTypeSchema = z.object({
+export const cableTypeSchema = z.strictObject({
   id,
   name: z.string().min(1),
   conductorResistanceOhmPerKm: positive('Conductor a.c. resistance at operating temperature'),
@@ -22,13 +53,13 @@ export const cableTypeSchema = z.object({
   oversheathWithstandKv: positive('Oversheath withstand voltage'),
 });
 
-export const circuitSchema = z.object({
+export const circuitSchema = z.strictObject({
   id,
   name: z.string().min(1),
   cableTypeId: id,
 });
 
-export const eccSchema = z.object({
+export const eccSchema = z.strictObject({
   id,
   name: z.string().min(1),
   resistanceOhmPerKm: positive('ECC resistance'),
@@ -41,7 +72,7 @@ export const eccSchema = z.object({
 });
 
 const formationSchema = z.discriminatedUnion('formation', [
-  z.object({
+  z.strictObject({
     circuitId: id,
     formation: z.literal('trefoil'),
     /** Axial spacing of adjacent cables; touching trefoil equals the overall diameter. */
@@ -49,47 +80,49 @@ const formationSchema = z.discriminatedUnion('formation', [
     depthM: positive('Depth'),
     centreXM: z.number().default(0),
   }),
-  z.object({
+  z.strictObject({
     circuitId: id,
     formation: z.literal('flat'),
     spacingM: positive('Spacing'),
     depthM: positive('Depth'),
     centreXM: z.number().default(0),
   }),
-  z.object({
+  z.strictObject({
     circuitId: id,
     formation: z.literal('coordinates'),
     /** Positions of the cables carrying phases a, b, c (x across the route, depth below ground). */
-    positions: z.array(z.object({ xM: z.number(), depthM: positive('Depth') })).length(3, 'Give three positions: a, b and c.'),
+    positions: z.array(z.strictObject({ xM: z.number(), depthM: positive('Depth') })).length(3, 'Give three positions: a, b and c.'),
   }),
 ]);
 
-export const layoutSchema = z.object({
+export const layoutSchema = z.strictObject({
   id,
   name: z.string().default(''),
-  circuits: z.array(formationSchema).min(1, 'Place at least one circuit.'),
-  eccs: z.array(z.object({ eccId: id, xM: z.number(), depthM: positive('ECC depth') })).default([]),
+  circuits: z.array(formationSchema).min(1, 'Place at least one circuit.').max(L.circuits, atMost(L.circuits, 'circuits')),
+  eccs: z.array(z.strictObject({ eccId: id, xM: z.number(), depthM: positive('ECC depth') })).max(L.eccs, atMost(L.eccs, 'ECCs')).default([]),
 });
 
-export const sectionSchema = z.object({
+export const sectionSchema = z.strictObject({
   id,
-  lengthM: positive('Section length'),
+  lengthM: positive('Section length')
+    .min(L.minSectionLengthM, 'A section shorter than a millimetre is not a cable section: check the units (metres).')
+    .max(L.maxRouteLengthM, `A section longer than ${L.maxRouteLengthM / 1000} km is longer than any cable route: check the units (metres).`),
   layoutId: id,
   /** Cable transposition at the section's start: the cables shift this many positions (0, 1, 2). */
   phaseRotation: z.union([z.literal(0), z.literal(1), z.literal(2)]).default(0),
 });
 
 export const bondingGroupSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('solid'), sectionIds: z.array(id).min(1) }),
-  z.object({
+  z.strictObject({ kind: z.literal('solid'), sectionIds: z.array(id).min(1).max(L.sections) }),
+  z.strictObject({
     kind: z.literal('single-point'),
-    sectionIds: z.array(id).min(1),
+    sectionIds: z.array(id).min(1).max(L.sections),
     earthedAt: z.enum(['start', 'end', 'middle']),
   }),
-  z.object({ kind: z.literal('cross-bonded'), sectionIds: z.array(id) }),
+  z.strictObject({ kind: z.literal('cross-bonded'), sectionIds: z.array(id).max(L.sections) }),
 ]);
 
-export const svlSchema = z.object({
+export const svlSchema = z.strictObject({
   /** Joint number along the route: 0 is the route start, n the end, k the joint after the k-th section. */
   jointIndex: z.number().int().nonnegative(),
   connection: z.enum(['to-earth', 'across-joint']),
@@ -101,19 +134,22 @@ export const svlSchema = z.object({
 
 const phase = z.enum(['a', 'b', 'c']);
 
-export const caseSchema = z.object({
+export const caseSchema = z.strictObject({
   id,
   name: z.string().min(1),
   kind: z.enum(['normal', 'emergency', 'three-phase-fault', 'earth-fault']),
   /** Fault duration including back-up clearance, s; needed for faults. */
   durationS: positive('Duration').optional(),
   /** Balanced positive-sequence currents per circuit (load or three-phase fault). */
-  currents: z.array(z.object({ circuitId: id, currentA: nonNegative('Current'), angleDeg: z.number().default(0) })).default([]),
+  currents: z
+    .array(z.strictObject({ circuitId: id, currentA: nonNegative('Current').max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`), angleDeg: z.number().default(0) }))
+    .max(L.circuits, atMost(L.circuits, 'circuit currents'))
+    .default([]),
   earthFault: z
     .object({
       circuitId: id,
       phase,
-      currentA: positive('Earth-fault current'),
+      currentA: positive('Earth-fault current').max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`),
       /** The fault lies beyond this end of the route; the source neutral is at the other end. */
       beyond: z.enum(['start', 'end']).default('end'),
     })
@@ -121,29 +157,55 @@ export const caseSchema = z.object({
   svlsConducting: z.boolean().default(false),
 });
 
-export const earthingSchema = z.object({
-  routeStartOhm: positive('Earth resistance at the route start'),
-  routeEndOhm: positive('Earth resistance at the route end'),
-  linkBoxOhm: positive('Earth resistance at link boxes'),
-  overrides: z.array(z.object({ jointIndex: z.number().int().nonnegative(), resistanceOhm: positive('Earth resistance') })).default([]),
+const earthOhm = (what: string) =>
+  positive(what)
+    .min(L.minEarthOhm, `${what} below ${L.minEarthOhm * 1000} mΩ is not an electrode: check the units (ohms).`)
+    .max(L.maxEarthOhm, `${what} above ${L.maxEarthOhm / 1000} kΩ is not an electrode: for a box with no electrode, say so with "noElectrode".`);
+
+/**
+ * The electrode at one joint, replacing the study-wide value there. `noElectrode` is for a
+ * cross-bonding link box installed without an electrode of its own: its SVL star point then
+ * connects to nothing but the SVLs.
+ */
+export const earthingOverrideSchema = z
+  .strictObject({
+    jointIndex: z.number().int().nonnegative(),
+    resistanceOhm: earthOhm('Earth resistance').optional(),
+    noElectrode: z.literal(true).optional(),
+  })
+  .refine((o) => (o.resistanceOhm === undefined) !== (o.noElectrode === undefined), {
+    message: 'Give either the electrode resistance or "noElectrode": true, not both and not neither.',
+    path: ['resistanceOhm'],
+  });
+
+/**
+ * Electrodes: each route end has its station grid, each link box (cross-bonding or earthing)
+ * its electrode; every one is a node of the network joined to remote earth through this
+ * resistance.
+ */
+export const earthingSchema = z.strictObject({
+  routeStartOhm: earthOhm('Earth resistance at the route start'),
+  routeEndOhm: earthOhm('Earth resistance at the route end'),
+  linkBoxOhm: earthOhm('Earth resistance at link boxes'),
+  overrides: z.array(earthingOverrideSchema).max(L.overrides, atMost(L.overrides, 'earthing overrides')).default([]),
 });
 
-export const bondingStudyBaseSchema = z.object({
+export const bondingStudyBaseSchema = z.strictObject({
   kind: z.literal('bonding'),
   title: z.string().min(1, 'Give the study a title.'),
   frequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'Frequency must be 50 or 60 Hz.' }),
-  soilResistivityOhmM: positive('Soil resistivity'),
-  cableTypes: z.array(cableTypeSchema).min(1, 'Add a cable type.'),
-  circuits: z.array(circuitSchema).min(1, 'Add a circuit.'),
-  eccs: z.array(eccSchema).default([]),
-  layouts: z.array(layoutSchema).min(1, 'Add a layout.'),
-  sections: z.array(sectionSchema).min(1, 'Add at least one route section.'),
-  bonding: z.array(bondingGroupSchema).min(1, 'Say how the sheaths are bonded.'),
+  soilResistivityOhmM: positive('Soil resistivity').max(100_000, 'A soil resistivity above 100 000 Ω·m is not soil: check the units (Ω·m).'),
+  cableTypes: z.array(cableTypeSchema).min(1, 'Add a cable type.').max(L.cableTypes, atMost(L.cableTypes, 'cable types')),
+  circuits: z.array(circuitSchema).min(1, 'Add a circuit.').max(L.circuits, atMost(L.circuits, 'circuits')),
+  eccs: z.array(eccSchema).max(L.eccs, atMost(L.eccs, 'ECCs')).default([]),
+  layouts: z.array(layoutSchema).min(1, 'Add a layout.').max(L.layouts, atMost(L.layouts, 'layouts')),
+  sections: z.array(sectionSchema).min(1, 'Add at least one route section.').max(L.sections, atMost(L.sections, 'route sections')),
+  bonding: z.array(bondingGroupSchema).min(1, 'Say how the sheaths are bonded.').max(L.sections, atMost(L.sections, 'bonding groups')),
   earthing: earthingSchema,
   /** Impedance of each cross-bonding lead, mΩ (0: ideal). */
-  bondingLeadMilliohm: z.object({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).default({ r: 0, x: 0 }),
-  svls: z.array(svlSchema).default([]),
-  cases: z.array(caseSchema).min(1, 'Add at least one case.'),
+  bondingLeadMilliohm: z.strictObject({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).default({ r: 0, x: 0 }),
+  svls: z.array(svlSchema).max(L.svls, atMost(L.svls, 'SVL entries')).default([]),
+  cases: z.array(caseSchema).min(1, 'Add at least one case.').max(L.cases, atMost(L.cases, 'cases')),
 });
 
 // Cross-field checks run once every field is valid on its own, so they can trust the numbers.

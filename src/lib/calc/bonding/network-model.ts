@@ -6,6 +6,17 @@ import { type RouteJoint, type RouteTopology, buildRouteTopology } from './route
 import type { CrossSectionCoupling } from '../network';
 
 export const SVL_TAG = 'svl-conducting';
+/** Present only while SVLs do not conduct: their leakage, which alone fixes the star point of a box with no electrode. */
+export const SVL_OFF_TAG = 'svl-blocking';
+/**
+ * Leakage of a metal-oxide SVL below its continuous operating voltage, as a resistance: of the
+ * order of a milliampere at a few kilovolts (from memory). Only the star point of a box with
+ * no electrode depends on it, and there only through the ratio of equal leakages.
+ */
+export const SVL_BLOCKING_OHM = 1e6;
+
+/** The local earth at a joint: a station grid, a link-box electrode, or a box with none. */
+export type LocalEarthKind = 'station-grid' | 'link-box-electrode' | 'no-electrode';
 const PHASES = 'abc';
 
 export interface CableRef {
@@ -22,11 +33,20 @@ export interface BondingNetworkModel {
   cables: CableRef[];
   eccIds: string[];
   /** Per joint: the sheath end nodes on each side (by cable index), the ECC nodes, the earth bar. */
-  jointNodes: Array<{ left: number[]; right: number[]; ecc: Map<string, number>; earthBar?: number; earthOhm?: number }>;
+  jointNodes: Array<{
+    left: number[];
+    right: number[];
+    ecc: Map<string, number>;
+    /** The local earth node (station earth bar or link-box earth terminal), joined to remote earth by `earthOhm`. */
+    earthBar?: number;
+    /** Electrode resistance; undefined for a box with no electrode. */
+    earthOhm?: number;
+    earthKind?: LocalEarthKind;
+  }>;
   /** Per segment: network segment index, and its conductor order (cables, then ECC ids). */
   segments: Array<{ networkIndex: number; eccIds: string[] }>;
-  /** SVL elements added: study SVL index, joint, cable, the nodes across it. */
-  svls: Array<{ svlIndex: number; joint: number; cable: number; a: number; b: number }>;
+  /** SVL elements added: study SVL index, joint, cable, the nodes across it (b is the box's earth node for an SVL to earth). */
+  svls: Array<{ svlIndex: number; joint: number; cable: number; a: number; b: number; admittanceS: Complex }>;
   /** Index of the earth-fault injection in the case source vector. */
   faultSourceIndex: number;
   routeStartBar: number;
@@ -56,16 +76,16 @@ export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
   const leadZ: Complex = { re: study.bondingLeadMilliohm.r / 1000, im: study.bondingLeadMilliohm.x / 1000 };
   const leadIdeal = leadZ.re === 0 && leadZ.im === 0;
 
+  const toEarthSvlJoints = new Set(study.svls.filter((v) => v.connection === 'to-earth').map((v) => v.jointIndex));
   topology.joints.forEach((joint, j) => {
     const nodes = jointNodes[j];
-    const needsBar =
-      j === 0 || j === last || joint.earthLeft || joint.earthRight ||
-      [...topology.eccSpans.values()].some((s) => s.fromJoint === j || s.toJoint === j);
-    if (needsBar) {
-      const ohm = earthResistance(study, joint, j === 0, j === last);
-      nodes.earthBar = builder.addNode(j, `earth at joint ${joint.userJointIndex ?? j}`);
-      nodes.earthOhm = ohm;
-      builder.addAdmittance(nodes.earthBar, EARTH, { re: 1 / ohm, im: 0 });
+    const electrode = localElectrode(study, topology, joint, j === 0, j === last);
+    if (electrode && (electrode.ohm !== undefined || toEarthSvlJoints.has(joint.userJointIndex ?? -1))) {
+      const what = electrode.kind === 'station-grid' ? 'station earth' : electrode.kind === 'no-electrode' ? 'link-box star point (no electrode)' : 'link-box earth';
+      nodes.earthBar = builder.addNode(j, `${what} at joint ${joint.userJointIndex ?? `(internal, ${joint.chainageM.toFixed(1)} m)`}`);
+      nodes.earthOhm = electrode.ohm;
+      nodes.earthKind = electrode.kind;
+      if (electrode.ohm !== undefined) builder.addAdmittance(nodes.earthBar, EARTH, { re: 1 / electrode.ohm, im: 0 });
     }
     const bar = nodes.earthBar!;
     if (joint.join === 'straight') {
@@ -95,23 +115,28 @@ export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
     return { networkIndex: builder.addSegment(from, to, seg.lengthM, couplings.get(key)!), eccIds: seg.eccIds };
   });
 
+  // SVLs as installed: to earth, each sheath terminal to the box's earth node (the star point,
+  // which the box electrode or station grid joins to remote earth); across the joint, between
+  // the two sheath ends.
   const svls: BondingNetworkModel['svls'] = [];
   study.svls.forEach((svl, svlIndex) => {
     const j = topology.joints.findIndex((x) => x.userJointIndex === svl.jointIndex);
     const joint = topology.joints[j];
     const nodes = jointNodes[j];
     const y = { re: 1 / svl.conductingResistanceOhm, im: 0 };
+    const box = nodes.earthBar!;
     cables.forEach((_, c) => {
       const pairs: Array<[number, number]> = [];
       if (svl.connection === 'across-joint') pairs.push([nodes.left[c], nodes.right[c]]);
-      else if (joint.join === 'cross') pairs.push([nodes.left[c], EARTH]);
+      else if (joint.join === 'cross') pairs.push([nodes.left[c], box]);
       else {
-        if (joint.hasLeft && !joint.earthLeft) pairs.push([nodes.left[c], EARTH]);
-        if (joint.hasRight && !joint.earthRight) pairs.push([nodes.right[c], EARTH]);
+        if (joint.hasLeft && !joint.earthLeft) pairs.push([nodes.left[c], box]);
+        if (joint.hasRight && !joint.earthRight) pairs.push([nodes.right[c], box]);
       }
       for (const [a, b] of pairs) {
         builder.addAdmittance(a, b, y, SVL_TAG);
-        svls.push({ svlIndex, joint: j, cable: c, a, b });
+        if (nodes.earthOhm === undefined && b === box) builder.addAdmittance(a, b, { re: 1 / SVL_BLOCKING_OHM, im: 0 }, SVL_OFF_TAG);
+        svls.push({ svlIndex, joint: j, cable: c, a, b, admittanceS: y });
       }
     });
   });
@@ -139,10 +164,22 @@ export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
   };
 }
 
-function earthResistance(study: BondingStudy, joint: RouteJoint, isStart: boolean, isEnd: boolean): number {
+/** Whether a joint has a local earth: a route end, any link box, a mid-point earthing, an ECC end. */
+export function hasLocalEarth(topology: RouteTopology, joint: RouteJoint, isEnd: boolean): boolean {
+  return (
+    isEnd || joint.join !== 'straight' || joint.earthLeft || joint.earthRight ||
+    [...topology.eccSpans.values()].some((s) => s.fromJoint === joint.index || s.toJoint === joint.index)
+  );
+}
+
+/** The electrode at a joint, or undefined where the joint has no link box (a straight-through joint). */
+function localElectrode(study: BondingStudy, topology: RouteTopology, joint: RouteJoint, isStart: boolean, isEnd: boolean): { kind: LocalEarthKind; ohm?: number } | undefined {
+  if (!hasLocalEarth(topology, joint, isStart || isEnd)) return undefined;
+  const kind: LocalEarthKind = isStart || isEnd ? 'station-grid' : 'link-box-electrode';
   const override = study.earthing.overrides.find((o) => o.jointIndex === joint.userJointIndex);
-  if (override) return override.resistanceOhm;
-  if (isStart) return study.earthing.routeStartOhm;
-  if (isEnd) return study.earthing.routeEndOhm;
-  return study.earthing.linkBoxOhm;
+  if (override?.noElectrode) return { kind: 'no-electrode' };
+  if (override?.resistanceOhm !== undefined) return { kind, ohm: override.resistanceOhm };
+  if (isStart) return { kind, ohm: study.earthing.routeStartOhm };
+  if (isEnd) return { kind, ohm: study.earthing.routeEndOhm };
+  return { kind, ohm: study.earthing.linkBoxOhm };
 }

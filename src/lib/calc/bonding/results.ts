@@ -1,12 +1,33 @@
-/** What a bonding study's calculation returns; plain JSON. Voltages are r.m.s. to earth unless named otherwise. */
+/**
+ * What a bonding study's calculation returns; plain JSON. Every voltage names its reference:
+ * `voltageV` is to remote earth (the reference of the network, zero potential far away),
+ * `toLocalEarthV` to the earth node at the same point (the station grid or the link-box
+ * electrode), `acrossJoint` between the two sheath ends of a joint.
+ */
 
 export type PointKind = 'route-end' | 'earthed-link-box' | 'cross-bonding-link-box' | 'open-end' | 'mid-point-earthing';
 
 export interface SheathEndVoltage {
   cable: string;
   side: 'arriving' | 'leaving';
+  /** To remote earth. */
   voltageV: number;
   angleDeg: number;
+  /** To the local earth node here (link-box terminal to its earth, or sheath to station earth); null where the point has none. */
+  toLocalEarthV: number | null;
+  toLocalEarthAngleDeg: number | null;
+}
+
+/** The earth node at a point, and its rise above remote earth. */
+export interface LocalEarth {
+  kind: 'station-grid' | 'link-box-electrode' | 'no-electrode';
+  /** Electrode resistance to remote earth; null for a box with no electrode. */
+  resistanceOhm: number | null;
+  /** Rise of the local earth above remote earth (GPR), V. */
+  voltageV: number;
+  angleDeg: number;
+  /** Current the electrode passes to remote earth, A. */
+  electrodeCurrentA: number;
 }
 
 export interface PointResult {
@@ -18,10 +39,14 @@ export interface PointResult {
   sheathEnds: SheathEndVoltage[];
   /** Voltage across the sectionalising insulation of each cable's joint, where the sheath is cut. */
   acrossJoint: Array<{ cable: string; voltageV: number }>;
+  /** Local earth to remote earth (same as localEarth.voltageV). */
   earthBarV?: number;
-  eccV: Array<{ eccId: string; voltageV: number }>;
-  /** Largest sheath-end voltage to earth here. */
+  localEarth: LocalEarth | null;
+  eccV: Array<{ eccId: string; voltageV: number; toLocalEarthV: number | null }>;
+  /** Largest sheath-end voltage to remote earth here. */
   maxV: number;
+  /** Largest sheath-end voltage to the local earth here; null where the point has none. */
+  maxToLocalEarthV: number | null;
 }
 
 export interface SvlResult {
@@ -29,7 +54,15 @@ export interface SvlResult {
   jointIndex: number;
   cable: string;
   connection: 'to-earth' | 'across-joint';
+  /** What the SVL is connected between, in words. */
+  terminals: string;
+  /** Between its two terminals. */
   voltageV: number;
+  angleDeg: number;
+  conducting: boolean;
+  /** Current through the SVL when it conducts (0 when it blocks), A. */
+  currentA: number;
+  currentAngleDeg: number;
   continuousRatingV: number;
   tovRatingV: number;
 }
@@ -52,7 +85,7 @@ export interface CaseResult {
   eccCurrents: Array<{ eccId: string; maxA: number }>;
   /** Circulating-current loss factor λ1' per cable (load cases with current only). */
   lossFactors: Array<{ cable: string; lossFactor: number }>;
-  /** Sheath and ECC voltage to earth along the route; chainages repeat at joints where a sheath is cut. */
+  /** Sheath and ECC voltage to remote earth along the route; chainages repeat at joints where a sheath is cut. */
   profile: { chainageM: number[]; series: ProfileSeries[] };
 }
 
@@ -71,6 +104,8 @@ export type WorstQuantity =
 export interface WorstValue {
   quantity: WorstQuantity;
   value: number;
+  /** Which reference the value is measured against, in words. */
+  reference: string;
   unit: 'V' | 'A' | '';
   caseId: string;
   where: string;

@@ -1,13 +1,13 @@
 import type { BondingStudy, StudyCase } from '../../schemas/bonding-study.schema';
-import { type Complex, abs, argDeg, sub } from '../complex';
+import { type Complex, abs, argDeg, mul, sub } from '../complex';
 import { ENGINE_VERSION } from '../constants';
 import { IllConditionedError } from '../banded-lu';
 import { type CompiledNetwork, FloatingNodesError, type NetworkSolution } from '../network';
 import { CalculationError } from '../errors';
 import { caseSources, circuitCurrentA } from './case-sources';
 import { bondingCrossChecks } from './cross-checks';
-import { type BondingNetworkModel, SVL_TAG, buildBondingNetwork } from './network-model';
-import type { BondingResults, CaseResult, PointKind, PointResult, ProfileSeries } from './results';
+import { type BondingNetworkModel, SVL_OFF_TAG, SVL_TAG, buildBondingNetwork } from './network-model';
+import type { BondingResults, CaseResult, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
 import { worstValues } from './worst-values';
 
 const PROFILE_STEPS = 6;
@@ -22,7 +22,7 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
   };
   const cases = study.cases.map((c) => {
     const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), caseSources(study, model, c), c);
-    return caseResult(study, model, c, solution);
+    return caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0);
   });
   return {
     kind: 'bonding',
@@ -36,7 +36,7 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
 
 function compileOrExplain(model: BondingNetworkModel, conducting: boolean): CompiledNetwork {
   try {
-    return model.builder.compile(new Set(conducting ? [SVL_TAG] : []));
+    return model.builder.compile(new Set([conducting ? SVL_TAG : SVL_OFF_TAG]));
   } catch (err) {
     if (err instanceof FloatingNodesError) {
       throw new CalculationError(`The bonding leaves sheaths or ECCs with no path to earth: ${err.labels.slice(0, 3).join('; ')}. Earth each sheath at least once.`, ['bonding']);
@@ -59,7 +59,7 @@ function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof cas
   }
 }
 
-function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution): CaseResult {
+function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean): CaseResult {
   const { topology, builder, cables, jointNodes } = model;
   const last = topology.joints.length - 1;
 
@@ -73,6 +73,8 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         : joint.join === 'cross' ? 'cross-bonding-link-box'
           : midEarth ? 'mid-point-earthing'
             : (joint.earthLeft && joint.earthRight) ? 'earthed-link-box' : 'open-end';
+    const earthV = nodes.earthBar === undefined ? undefined : solution.voltage(nodes.earthBar);
+    const toLocal = (v: Complex) => (earthV === undefined ? null : sub(v, earthV));
     const seen = new Set<number>();
     const sheathEnds: PointResult['sheathEnds'] = [];
     (['arriving', 'leaving'] as const).forEach((side) => {
@@ -81,7 +83,15 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         if (seen.has(rep)) return;
         seen.add(rep);
         const v = solution.voltage(node);
-        sheathEnds.push({ cable: cables[k].label, side, voltageV: abs(v), angleDeg: argDeg(v) });
+        const local = toLocal(v);
+        sheathEnds.push({
+          cable: cables[k].label,
+          side,
+          voltageV: abs(v),
+          angleDeg: argDeg(v),
+          toLocalEarthV: local && abs(local),
+          toLocalEarthAngleDeg: local && argDeg(local),
+        });
       });
     });
     const acrossJoint =
@@ -93,6 +103,16 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
           )
         : [];
     const at = joint.userJointIndex === undefined ? `${joint.chainageM.toFixed(0)} m` : `joint ${joint.userJointIndex} (${joint.chainageM.toFixed(0)} m)`;
+    const localEarth: LocalEarth | null =
+      earthV === undefined
+        ? null
+        : {
+            kind: nodes.earthKind!,
+            resistanceOhm: nodes.earthOhm ?? null,
+            voltageV: abs(earthV),
+            angleDeg: argDeg(earthV),
+            electrodeCurrentA: nodes.earthOhm === undefined ? 0 : abs(earthV) / nodes.earthOhm,
+          };
     points.push({
       jointIndex: joint.userJointIndex ?? null,
       chainageM: joint.chainageM,
@@ -100,20 +120,33 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
       label: `${at}, ${kind.replace(/-/g, ' ')}`,
       sheathEnds,
       acrossJoint,
-      earthBarV: nodes.earthBar === undefined ? undefined : abs(solution.voltage(nodes.earthBar)),
-      eccV: [...nodes.ecc].map(([eccId, node]) => ({ eccId, voltageV: abs(solution.voltage(node)) })),
+      earthBarV: earthV === undefined ? undefined : abs(earthV),
+      localEarth,
+      eccV: [...nodes.ecc].map(([eccId, node]) => {
+        const v = solution.voltage(node);
+        const local = toLocal(v);
+        return { eccId, voltageV: abs(v), toLocalEarthV: local && abs(local) };
+      }),
       maxV: Math.max(0, ...sheathEnds.map((e) => e.voltageV)),
+      maxToLocalEarthV: earthV === undefined ? null : Math.max(0, ...sheathEnds.map((e) => e.toLocalEarthV ?? 0)),
     });
   });
 
-  const svls = model.svls.map((s) => {
+  const svls = model.svls.map((s): SvlResult => {
     const spec = study.svls[s.svlIndex];
+    const across = sub(solution.voltage(s.a), solution.voltage(s.b));
+    const current = conducting ? mul(across, s.admittanceS) : { re: 0, im: 0 };
     return {
       svlIndex: s.svlIndex,
       jointIndex: spec.jointIndex,
       cable: cables[s.cable].label,
       connection: spec.connection,
-      voltageV: abs(sub(solution.voltage(s.a), solution.voltage(s.b))),
+      terminals: spec.connection === 'across-joint' ? 'across the joint (sheath to sheath)' : `sheath to ${model.jointNodes[s.joint].earthKind === 'station-grid' ? 'station earth' : 'link-box earth'}`,
+      voltageV: abs(across),
+      angleDeg: argDeg(across),
+      conducting,
+      currentA: abs(current),
+      currentAngleDeg: argDeg(current),
       continuousRatingV: spec.continuousRatingV,
       tovRatingV: spec.tovRatingV,
     };

@@ -1,6 +1,14 @@
 import type { BondingStudy } from '../../schemas/bonding-study.schema';
 import { cablePositions } from './cross-section';
 import { buildRouteTopology, svlPlacement } from './route-topology';
+import { hasLocalEarth } from './network-model';
+import { earthReturnDepthM } from '../earth-return';
+
+/** Carson's simplified formulae hold while the earth-return depth is much larger than the spacing: here at least ten times (common practice). */
+export const MIN_DEPTH_TO_SPACING = 10;
+/** Mirrors STUDY_LIMITS.conductors and maxRouteLengthM of the schema (the core cannot import zod modules). */
+const MAX_CONDUCTORS = 40;
+const MAX_ROUTE_M = 1_000_000;
 
 export interface InputIssue {
   path: (string | number)[];
@@ -41,6 +49,11 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
     if (to === undefined) report(['eccs', i, 'toSectionId'], `No section "${e.toSectionId}".`);
     if (from !== undefined && to !== undefined && from > to) report(['eccs', i, 'toSectionId'], 'The ECC must end at or after the section where it starts.');
   });
+  if (study.circuits.length * 3 + study.eccs.length > MAX_CONDUCTORS) {
+    report(['eccs'], `At most ${MAX_CONDUCTORS} sheaths and ECCs in one cross-section; this study has ${study.circuits.length * 3 + study.eccs.length} (three sheaths per circuit). Split the study.`);
+  }
+  const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
+  if (routeM > MAX_ROUTE_M) report(['sections'], `The route is ${(routeM / 1000).toFixed(0)} km long, longer than any cable route (${MAX_ROUTE_M / 1000} km at most): check the units (metres).`);
   checkLayouts(study, report, circuits, cableTypes);
   checkBondingCoverage(study, report, sections);
   checkCases(study, report, circuits);
@@ -73,8 +86,25 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
       report(['svls', i, 'jointIndex'], `Joint ${svl.jointIndex} has no sectionalising insulation for an SVL across the joint.`);
     }
   });
+  const last = topology.joints.length - 1;
+  const overridden = new Set<number>();
   study.earthing.overrides.forEach((o, i) => {
-    if (o.jointIndex > study.sections.length) report(['earthing', 'overrides', i, 'jointIndex'], `Joint ${o.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+    const path = ['earthing', 'overrides', i, 'jointIndex'];
+    const joint = byUserJoint.get(o.jointIndex);
+    if (!joint) return report(path, `Joint ${o.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+    if (overridden.has(o.jointIndex)) return report(path, `Joint ${o.jointIndex} has two earthing overrides; keep one.`);
+    overridden.add(o.jointIndex);
+    if (!hasLocalEarth(topology, joint, joint.index === 0 || joint.index === last)) {
+      return report(path, `Joint ${o.jointIndex} is a straight-through joint with no link box, so an electrode there connects to nothing: remove the override or change the bonding.`);
+    }
+    if (o.noElectrode) {
+      const eccEnd = [...topology.eccSpans.values()].some((s) => s.fromJoint === joint.index || s.toJoint === joint.index);
+      if (joint.join !== 'cross' || joint.earthLeft || joint.earthRight) {
+        report(['earthing', 'overrides', i, 'noElectrode'], `Joint ${o.jointIndex} is not a cross-bonding link box: only a cross-bonding box can be installed without an electrode, since sheaths or ECCs are earthed here.`);
+      } else if (eccEnd) {
+        report(['earthing', 'overrides', i, 'noElectrode'], `Joint ${o.jointIndex}: an ECC ends here and must be bonded to an electrode.`);
+      }
+    }
   });
   return issues;
 }
@@ -117,6 +147,15 @@ function checkLayouts(study: BondingStudy, report: Report, circuits: Map<string,
       const hit = cables.find((c) => Math.hypot(c.xM - e.xM, c.depthM - e.depthM) < c.radiusM);
       if (hit) report(['layouts', li, 'eccs', ei], `The ECC lies inside cable ${hit.label}. Move it clear of the cables.`);
     });
+    const points = [...cables, ...layout.eccs.map((e) => ({ xM: e.xM, depthM: e.depthM }))];
+    let widestM = 0;
+    for (let a = 0; a < points.length; a++) {
+      for (let b = a + 1; b < points.length; b++) widestM = Math.max(widestM, Math.hypot(points[a].xM - points[b].xM, points[a].depthM - points[b].depthM));
+    }
+    const depthM = earthReturnDepthM(study.soilResistivityOhmM, study.frequencyHz);
+    if (depthM < MIN_DEPTH_TO_SPACING * widestM) {
+      report(['soilResistivityOhmM'], `At ${study.soilResistivityOhmM} Ω·m the equivalent earth-return depth is ${depthM.toFixed(1)} m, not much larger than the ${widestM.toFixed(2)} m between conductors in layout "${layout.id}" (Carson's simplified formulae need at least ${MIN_DEPTH_TO_SPACING}×). Check the resistivity and its units (Ω·m).`);
+    }
   });
 }
 
