@@ -39,7 +39,7 @@ export interface DenseSolution {
  * with Z_mm recovered by mathjs's inverse of the stored admittance. Branch currents come out
  * as unknowns, not from node voltages.
  */
-export function solvePhysicalNetworkWithMathjs(builder: NetworkBuilder, activeTags: ReadonlySet<string>, sources: Complex[]): DenseSolution {
+export function solvePhysicalNetworkWithMathjs(builder: NetworkBuilder, activeTags: ReadonlySet<string>, sources: Complex[], segmentSources?: (k: number) => Complex[]): DenseSolution {
   const el = builder.elements(activeTags);
   const nNodes = el.nodeCount;
   const branchStart: number[] = [];
@@ -100,7 +100,7 @@ export function solvePhysicalNetworkWithMathjs(builder: NetworkBuilder, activeTa
       });
       seg.coupling.sourceIndices.forEach((si, c) => {
         const z = toComplex(zmsArr[i][c]);
-        const s = sources[si];
+        const s = (segmentSources ? segmentSources(k) : sources)[si];
         addRhs(branch, { re: seg.lengthM * (z.re * s.re - z.im * s.im), im: seg.lengthM * (z.re * s.im + z.im * s.re) });
       });
     });

@@ -49,7 +49,7 @@ export function evaluateBondingCompliance(study: BondingStudy, results: BondingR
       const joints = c.points.flatMap((p) => p.acrossJoint.map((a) => ({ value: a.voltageV, where: `${p.label}, cable ${a.cable}` })));
       if (joints.length) fromSet('joint-voltage-fault', 'Voltage across the sectionalising insulation (sheath end to sheath end) during the fault', c, maxOf(joints));
       if (c.eccCurrents.length) {
-        fromSet('ecc-current-fault', 'ECC current during the through fault', c, maxOf(c.eccCurrents.map((e) => ({ value: e.maxA, where: `ECC ${e.eccId}` }))), 'A');
+        fromSet('ecc-current-fault', 'ECC current during the fault', c, maxOf(c.eccCurrents.map((e) => ({ value: e.maxA, where: `ECC ${e.eccId}` }))), 'A');
       }
       const withstandV = Math.min(...study.cableTypes.map((t) => t.oversheathWithstandKv * 1000));
       items.push(item('oversheath-fault', 'Sheath voltage to the surrounding earth (the larger of to remote and to local earth) against the oversheath withstand', c.caseId, maxOf(oversheathVoltages(c)), withstandV, 'V', 'cable type data: oversheath power-frequency withstand'));

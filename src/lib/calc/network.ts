@@ -231,12 +231,16 @@ export class CompiledNetwork {
     return this.unknown(node);
   }
 
-  /** The nodal current vector J for a case (Y·V = J). */
-  rightHandSide(sources: Complex[]): { re: Float64Array; im: Float64Array } {
+  /**
+   * The nodal current vector J for a case (Y·V = J). `segmentSources(k)`, when given, is the
+   * source vector segment k sees (a core current that changes along the route, as on either
+   * side of an internal fault); injections always use `sources`.
+   */
+  rightHandSide(sources: Complex[], segmentSources?: SegmentSources): { re: Float64Array; im: Float64Array } {
     const re = new Float64Array(this.size);
     const im = new Float64Array(this.size);
     this.segments.forEach((seg, k) => {
-      const drive = segmentDrive(seg, sources);
+      const drive = segmentDrive(seg, segmentSources ? segmentSources(k) : sources);
       const { from, to } = this.segmentUnknowns[k];
       drive.forEach((d, i) => {
         if (from[i] !== EARTH) {
@@ -257,15 +261,18 @@ export class CompiledNetwork {
     return { re, im };
   }
 
-  solve(sources: Complex[]): NetworkSolution {
-    const { re, im } = this.rightHandSide(sources);
+  solve(sources: Complex[], segmentSources?: SegmentSources): NetworkSolution {
+    const { re, im } = this.rightHandSide(sources, segmentSources);
     solveFactored(this.lu, re, im);
     for (let i = 0; i < re.length; i++) {
       if (!Number.isFinite(re[i]) || !Number.isFinite(im[i])) throw new IllConditionedError(i);
     }
-    return new NetworkSolution(re, im, this.segments, this.segmentUnknowns, this.unknown, sources);
+    return new NetworkSolution(re, im, this.segments, this.segmentUnknowns, this.unknown, segmentSources ?? (() => sources));
   }
 }
+
+/** The source vector each segment sees, by segment index. */
+export type SegmentSources = (segmentIndex: number) => Complex[];
 
 /** inv(Z)·Z_ms·I_s: the short-circuit current each conductor's induced EMF drives (plain arithmetic: this runs per segment and case). */
 function segmentDrive(seg: Segment, sources: Complex[]): Complex[] {
@@ -290,7 +297,7 @@ export class NetworkSolution {
     private readonly segments: Segment[],
     private readonly segmentUnknowns: Array<{ from: number[]; to: number[] }>,
     private readonly unknown: (node: number) => number,
-    private readonly sources: Complex[],
+    private readonly sources: SegmentSources,
   ) {}
 
   /** Voltage of a node to the reference (remote earth), V. */
@@ -310,7 +317,7 @@ export class NetworkSolution {
       dropRe[i] = (from[i] === EARTH ? 0 : this.re[from[i]]) - (to[i] === EARTH ? 0 : this.re[to[i]]);
       dropIm[i] = (from[i] === EARTH ? 0 : this.im[from[i]]) - (to[i] === EARTH ? 0 : this.im[to[i]]);
     }
-    const drive = segmentDrive(seg, this.sources);
+    const drive = segmentDrive(seg, this.sources(index));
     return seg.coupling.zInv.map((row, i) => {
       let re = 0;
       let im = 0;

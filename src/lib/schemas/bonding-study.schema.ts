@@ -133,27 +133,79 @@ export const svlSchema = z.strictObject({
 });
 
 const phase = z.enum(['a', 'b', 'c']);
+const faultCurrent = (what: string) =>
+  positive(what).max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`);
+/** A current phasor in a fault, A and degrees; angles matter when two currents meet. */
+const currentPhasor = (what: string) => z.strictObject({ currentA: faultCurrent(what), angleDeg: z.number().default(0) });
+/** Share of the fault current returning through the source-end station grid; the rest returns by paths outside this route. 1 (the default) is all of it. */
+const sourceStationShare = z.number().min(0, 'The share cannot be negative.').max(1, 'The share cannot exceed 1.').default(1);
+
+export const caseKinds = ['normal', 'emergency', 'three-phase-fault', 'earth-fault', 'phase-phase-earth-fault', 'internal-fault', 'station-gpr'] as const;
 
 export const caseSchema = z.strictObject({
   id,
   name: z.string().min(1),
-  kind: z.enum(['normal', 'emergency', 'three-phase-fault', 'earth-fault']),
+  /**
+   * normal and emergency: load, each with its own currents; three-phase-fault, earth-fault,
+   * phase-phase-earth-fault: through faults beyond an end of the route; internal-fault: a
+   * core-to-sheath breakdown on the route; station-gpr: a station earth rise from a fault
+   * elsewhere, carried into the route ends.
+   */
+  kind: z.enum(caseKinds),
   /** Fault duration including back-up clearance, s; needed for faults. */
-  durationS: positive('Duration').optional(),
+  durationS: positive('Duration').max(10, 'A fault lasting more than 10 s is not cleared: check the units (seconds).').optional(),
   /** Balanced positive-sequence currents per circuit (load or three-phase fault). */
   currents: z
     .array(z.strictObject({ circuitId: id, currentA: nonNegative('Current').max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`), angleDeg: z.number().default(0) }))
     .max(L.circuits, atMost(L.circuits, 'circuit currents'))
     .default([]),
   earthFault: z
-    .object({
+    .strictObject({
       circuitId: id,
       phase,
-      currentA: positive('Earth-fault current').max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`),
+      currentA: faultCurrent('Earth-fault current'),
       /** The fault lies beyond this end of the route; the source neutral is at the other end. */
       beyond: z.enum(['start', 'end']).default('end'),
+      sourceStationShare,
     })
     .optional(),
+  /** Two phases faulted together to earth beyond an end: each phase's current; the earth takes their sum. */
+  phasePhaseEarthFault: z
+    .strictObject({
+      circuitId: id,
+      phases: z.tuple([phase, phase]),
+      currents: z.tuple([currentPhasor('Fault current'), currentPhasor('Fault current')]),
+      beyond: z.enum(['start', 'end']).default('end'),
+      sourceStationShare,
+    })
+    .optional(),
+  /**
+   * A core-to-sheath breakdown on the route: at a joint (the sheath arriving at it, or leaving
+   * it) or at a chainage, fed from the start, the end or both; each infeed returns to the
+   * source neutral at its own station.
+   */
+  internalFault: z
+    .strictObject({
+      circuitId: id,
+      phase,
+      jointIndex: z.number().int().nonnegative().optional(),
+      side: z.enum(['arriving', 'leaving']).default('arriving'),
+      chainageM: z.number().positive('The fault chainage must lie inside the route.').optional(),
+      /** Current flowing from the route start towards the fault. */
+      fromStart: z.strictObject({ currentA: nonNegative('Infeed from the start').max(L.maxCurrentA), angleDeg: z.number().default(0) }).default({ currentA: 0, angleDeg: 0 }),
+      /** Current flowing from the route end towards the fault. */
+      fromEnd: z.strictObject({ currentA: nonNegative('Infeed from the end').max(L.maxCurrentA), angleDeg: z.number().default(0) }).default({ currentA: 0, angleDeg: 0 }),
+    })
+    .optional(),
+  /**
+   * Station earth potential rise from a fault elsewhere, as the rise the station would have
+   * without this route: carried in as a current of GPR/R_grid into the station grid (a Norton
+   * source), so the route's own sheaths and earths load it down.
+   */
+  stationGpr: z
+    .array(z.strictObject({ station: z.enum(['start', 'end']), voltageV: positive('Station earth potential rise').max(1e6), angleDeg: z.number().default(0) }))
+    .max(2)
+    .default([]),
   svlsConducting: z.boolean().default(false),
 });
 

@@ -2,7 +2,7 @@ import type { BondingStudy } from '../../schemas/bonding-study.schema';
 import { type Complex, div } from '../complex';
 import { EARTH, NetworkBuilder } from '../network';
 import { crossSectionKey, segmentCoupling } from './impedances';
-import { type RouteJoint, type RouteTopology, buildRouteTopology } from './route-topology';
+import { type RouteJoint, type RouteTopology, buildRouteTopology, jointAtChainage } from './route-topology';
 import type { CrossSectionCoupling } from '../network';
 
 export const SVL_TAG = 'svl-conducting';
@@ -47,8 +47,16 @@ export interface BondingNetworkModel {
   segments: Array<{ networkIndex: number; eccIds: string[] }>;
   /** SVL elements added: study SVL index, joint, cable, the nodes across it (b is the box's earth node for an SVL to earth). */
   svls: Array<{ svlIndex: number; joint: number; cable: number; a: number; b: number; admittanceS: Complex }>;
-  /** Index of the earth-fault injection in the case source vector. */
-  faultSourceIndex: number;
+  /** Length of a case's source vector. */
+  sourceCount: number;
+  /** Source-vector entries: current entering the earth at the end and at the start station grids. */
+  earthAtEndIndex: number;
+  earthAtStartIndex: number;
+  /** Per internal-fault case: the joint of the breakdown, the sheath node it feeds, its source entry. */
+  internalFaults: Map<string, { joint: number; node: number; cable: number; sourceIndex: number }>;
+  /** Station grid resistances as used (overrides included). */
+  routeStartOhm: number;
+  routeEndOhm: number;
   routeStartBar: number;
   routeEndBar: number;
 }
@@ -141,10 +149,26 @@ export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
     });
   });
 
-  // The earth-fault current enters the earth at the station beyond which the fault lies and
-  // returns to the source neutral at the other: the case's fault phasor carries the sign.
-  builder.addInjection(jointNodes[last].earthBar!, cables.length, 1);
-  builder.addInjection(jointNodes[0].earthBar!, cables.length, -1);
+  // Currents entering the earth at the station grids (a through fault's residual, its return
+  // to the source neutral, a station rise from elsewhere): their phasors carry the sign.
+  const earthAtEndIndex = cables.length;
+  const earthAtStartIndex = cables.length + 1;
+  builder.addInjection(jointNodes[last].earthBar!, earthAtEndIndex, 1);
+  builder.addInjection(jointNodes[0].earthBar!, earthAtStartIndex, 1);
+  // Each internal fault puts its current into the faulted sheath at its own point.
+  const internalFaults: BondingNetworkModel['internalFaults'] = new Map();
+  let sourceCount = cables.length + 2;
+  for (const c of study.cases) {
+    if (c.kind !== 'internal-fault' || !c.internalFault) continue;
+    const f = c.internalFault;
+    const joint = f.chainageM !== undefined ? jointAtChainage(topology, f.chainageM) : topology.joints.find((x) => x.userJointIndex === f.jointIndex)!;
+    const cable = cables.findIndex((x) => x.circuitId === f.circuitId && x.phase === 'abc'.indexOf(f.phase));
+    const nodes = jointNodes[joint.index];
+    const node = (f.side === 'leaving' && joint.hasRight) || !joint.hasLeft ? nodes.right[cable] : nodes.left[cable];
+    const sourceIndex = sourceCount++;
+    builder.addInjection(node, sourceIndex, 1);
+    internalFaults.set(c.id, { joint: joint.index, node, cable, sourceIndex });
+  }
 
   function sameCircuitNextPhase(c: number): number {
     return c - (c % 3) + ((c % 3) + 1) % 3;
@@ -158,7 +182,12 @@ export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
     jointNodes,
     segments,
     svls,
-    faultSourceIndex: cables.length,
+    sourceCount,
+    earthAtEndIndex,
+    earthAtStartIndex,
+    internalFaults,
+    routeStartOhm: jointNodes[0].earthOhm!,
+    routeEndOhm: jointNodes[last].earthOhm!,
     routeStartBar: jointNodes[0].earthBar!,
     routeEndBar: jointNodes[last].earthBar!,
   };

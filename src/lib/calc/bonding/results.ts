@@ -77,7 +77,7 @@ export interface ProfileSeries {
 export interface CaseResult {
   caseId: string;
   name: string;
-  kind: 'normal' | 'emergency' | 'three-phase-fault' | 'earth-fault';
+  kind: 'normal' | 'emergency' | 'three-phase-fault' | 'earth-fault' | 'phase-phase-earth-fault' | 'internal-fault' | 'station-gpr';
   durationS?: number;
   points: PointResult[];
   svls: SvlResult[];

@@ -2,9 +2,9 @@ import type { BondingStudy, StudyCase } from '../../schemas/bonding-study.schema
 import { type Complex, abs, argDeg, mul, sub } from '../complex';
 import { ENGINE_VERSION } from '../constants';
 import { IllConditionedError } from '../banded-lu';
-import { type CompiledNetwork, FloatingNodesError, type NetworkSolution } from '../network';
+import { type CompiledNetwork, FloatingNodesError, type NetworkSolution, type SegmentSources } from '../network';
 import { CalculationError } from '../errors';
-import { caseSources, circuitCurrentA } from './case-sources';
+import { caseSegmentSources, caseSources, circuitCurrentA } from './case-sources';
 import { bondingCrossChecks } from './cross-checks';
 import { type BondingNetworkModel, SVL_OFF_TAG, SVL_TAG, buildBondingNetwork } from './network-model';
 import type { BondingResults, CaseResult, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
@@ -21,7 +21,8 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     return compiled.get(conducting)!;
   };
   const cases = study.cases.map((c) => {
-    const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), caseSources(study, model, c), c);
+    const sources = caseSources(study, model, c);
+    const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), sources, caseSegmentSources(study, model, c, sources), c);
     return caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0);
   });
   return {
@@ -48,9 +49,9 @@ function compileOrExplain(model: BondingNetworkModel, conducting: boolean): Comp
   }
 }
 
-function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof caseSources>, c: StudyCase): NetworkSolution {
+function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof caseSources>, segmentSources: SegmentSources | undefined, c: StudyCase): NetworkSolution {
   try {
-    return network.solve(sources);
+    return network.solve(sources, segmentSources);
   } catch (err) {
     if (err instanceof IllConditionedError) {
       throw new CalculationError(`Case "${c.id}" gives no finite solution: check its currents for extreme values.`, ['cases']);

@@ -187,14 +187,32 @@ function checkCases(study: BondingStudy, report: Report, circuits: Map<string, u
       if (seen.has(cur.circuitId)) report(['cases', i, 'currents', k, 'circuitId'], `Circuit "${cur.circuitId}" has two currents in this case.`);
       seen.add(cur.circuitId);
     });
-    const isFault = c.kind === 'three-phase-fault' || c.kind === 'earth-fault';
-    if (isFault && c.durationS === undefined) report(['cases', i, 'durationS'], 'A fault case needs its duration, including back-up clearance.');
-    if (c.kind === 'earth-fault') {
-      if (!c.earthFault) report(['cases', i, 'earthFault'], 'An earth-fault case needs the faulted circuit, phase and current.');
-      else if (!circuits.has(c.earthFault.circuitId)) report(['cases', i, 'earthFault', 'circuitId'], `No circuit "${c.earthFault.circuitId}": the fault must be on a circuit of this study.`);
-    } else {
-      if (c.earthFault) report(['cases', i, 'earthFault'], `Only an earth-fault case has an earth fault; this case is "${c.kind}".`);
-      if (!c.currents.some((cur) => cur.currentA > 0)) report(['cases', i, 'currents'], 'Give a current above zero for at least one circuit.');
+    const isFault = c.kind !== 'normal' && c.kind !== 'emergency';
+    const at = (...rest: (string | number)[]) => ['cases', i, ...rest];
+    if (isFault && c.durationS === undefined) report(at('durationS'), 'A fault case needs its duration, including back-up clearance.');
+    const needs = { 'earth-fault': 'earthFault', 'phase-phase-earth-fault': 'phasePhaseEarthFault', 'internal-fault': 'internalFault' } as const;
+    for (const [kind, key] of Object.entries(needs) as Array<[keyof typeof needs, (typeof needs)[keyof typeof needs]]>) {
+      if (c.kind === kind && !c[key]) report(at(key), `A case of kind "${kind}" needs ${key === 'internalFault' ? 'the faulted circuit, phase, place and infeeds' : 'the faulted circuit, phase and current'}.`);
+      if (c.kind !== kind && c[key]) report(at(key), `Only a case of kind "${kind}" has "${key}"; this case is "${c.kind}".`);
+      const f = c[key];
+      if (c.kind === kind && f && !circuits.has(f.circuitId)) report(at(key, 'circuitId'), `No circuit "${f.circuitId}": the fault must be on a circuit of this study.`);
+    }
+    if (c.kind === 'phase-phase-earth-fault' && c.phasePhaseEarthFault && c.phasePhaseEarthFault.phases[0] === c.phasePhaseEarthFault.phases[1]) {
+      report(at('phasePhaseEarthFault', 'phases'), 'Name two different phases.');
+    }
+    if (c.kind === 'internal-fault' && c.internalFault) {
+      const f = c.internalFault;
+      const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
+      if ((f.jointIndex === undefined) === (f.chainageM === undefined)) report(at('internalFault', 'jointIndex'), 'Place the fault either at a joint or at a chainage, not both and not neither.');
+      else if (f.jointIndex !== undefined && f.jointIndex > study.sections.length) report(at('internalFault', 'jointIndex'), `Joint ${f.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+      else if (f.chainageM !== undefined && f.chainageM >= routeM) report(at('internalFault', 'chainageM'), `The fault at ${f.chainageM} m lies beyond the route end (${routeM} m).`);
+      if (f.fromStart.currentA === 0 && f.fromEnd.currentA === 0) report(at('internalFault', 'fromStart'), 'Give the infeed from the start, the end or both.');
+    }
+    if (c.kind === 'station-gpr' && !c.stationGpr.length) report(at('stationGpr'), 'A station-rise case needs the rise at one station or both.');
+    if (!isFault && c.stationGpr.length) report(at('stationGpr'), 'A station earth rise belongs to a fault case, not a load case.');
+    if (new Set(c.stationGpr.map((g) => g.station)).size !== c.stationGpr.length) report(at('stationGpr'), 'Give each station once.');
+    if (c.kind === 'normal' || c.kind === 'emergency' || c.kind === 'three-phase-fault') {
+      if (!c.currents.some((cur) => cur.currentA > 0)) report(at('currents'), 'Give a current above zero for at least one circuit.');
     }
   });
 }
