@@ -51,6 +51,8 @@ export const cableTypeSchema = z.strictObject({
   overallDiameterMm: positive('Overall cable diameter'),
   /** Power-frequency withstand of the oversheath, r.m.s., for the fault duration. */
   oversheathWithstandKv: positive('Oversheath withstand voltage'),
+  /** λ1 the cable's current rating assumed (IEC 60287-1-1); the study's λ1 is checked against it. */
+  ratingLossFactor: nonNegative('Loss factor assumed in the rating').max(10).optional(),
 });
 
 export const circuitSchema = z.strictObject({
@@ -69,6 +71,9 @@ export const eccSchema = z.strictObject({
   toSectionId: id,
   /** Cross the ECC to the mirror position at the middle of its run. */
   transposedAtMidpoint: z.boolean().default(false),
+  /** For the adiabatic check of its fault current; no check without it. */
+  crossSectionMm2: positive('ECC cross-section').max(5000).optional(),
+  material: z.enum(['copper', 'aluminium']).default('copper'),
 });
 
 const formationSchema = z.discriminatedUnion('formation', [
@@ -130,6 +135,8 @@ export const svlSchema = z.strictObject({
   /** Temporary-overvoltage capability for the fault duration (maker's data). */
   tovRatingV: positive('SVL temporary-overvoltage capability'),
   conductingResistanceOhm: positive('SVL resistance when conducting').default(0.5),
+  /** Energy the SVL absorbs without damage (maker's data), kJ; the energy estimate is shown without a limit when absent. */
+  energyRatingKJ: positive('SVL energy rating').optional(),
 });
 
 const phase = z.enum(['a', 'b', 'c']);
@@ -257,6 +264,20 @@ export const bondingStudyBaseSchema = z.strictObject({
   /** Impedance of each cross-bonding lead, mΩ (0: ideal). */
   bondingLeadMilliohm: z.strictObject({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).default({ r: 0, x: 0 }),
   svls: z.array(svlSchema).max(L.svls, atMost(L.svls, 'SVL entries')).default([]),
+  /** Cross-bonding and earthing leads, for their adiabatic check; no check without them. */
+  bondingLeads: z.strictObject({ crossSectionMm2: positive('Bonding lead cross-section').max(5000), material: z.enum(['copper', 'aluminium']).default('copper') }).optional(),
+  /** Temperatures for the adiabatic checks of ECCs and leads, °C (defaults: common practice for PVC-covered copper up to 300 mm², from memory). */
+  adiabatic: z
+    .strictObject({ initialC: z.number().min(-40).max(250).default(50), finalC: z.number().min(0).max(1100).default(160) })
+    .refine((a) => a.finalC > a.initialC, { message: 'The final temperature must be above the initial one.', path: ['finalC'] })
+    .default({ initialC: 50, finalC: 160 }),
+  /** Where people stand at link boxes and route ends, for the IEEE Std 80 tolerable touch voltage. */
+  touch: z
+    .strictObject({
+      bodyWeightKg: z.union([z.literal(50), z.literal(70)]).default(50),
+      surfaceLayer: z.strictObject({ resistivityOhmM: positive('Surface layer resistivity'), thicknessM: positive('Surface layer thickness') }).optional(),
+    })
+    .default({ bodyWeightKg: 50 }),
   cases: z.array(caseSchema).min(1, 'Add at least one case.').max(L.cases, atMost(L.cases, 'cases')),
 });
 

@@ -85,8 +85,31 @@ export interface CaseResult {
   eccCurrents: Array<{ eccId: string; maxA: number }>;
   /** Circulating-current loss factor λ1' per cable (load cases with current only). */
   lossFactors: Array<{ cable: string; lossFactor: number }>;
+  /** Largest current in the cross-bonding leads at each cross-bonding joint (the sheath current arriving there), A. */
+  bondingLeadCurrents: Array<{ jointIndex: number; maxA: number }>;
+  /** Figures a checker reproduces by hand: induced EMF and sheath current per kA of the case's largest core current. */
+  handCheck: CaseHandCheck;
   /** Sheath and ECC voltage to remote earth along the route; chainages repeat at joints where a sheath is cut. */
   profile: { chainageM: number[]; series: ProfileSeries[] };
+}
+
+export interface CaseHandCheck {
+  /** The largest core current of the case, A: the "per kA" below is per kA of it. */
+  referenceCurrentA: number;
+  /** Open-circuit EMF induced along each sheath, |Σ Z_sc·I_c|, V/km per kA, in each cross-section. */
+  emfVPerKmPerKA: Array<{ crossSection: string; cable: string; value: number }>;
+  /** Largest sheath current per kA of the reference current, A/kA. */
+  sheathCurrentAPerKA: Array<{ cable: string; value: number }>;
+}
+
+/** The per-kilometre impedance matrix of one cross-section, with earth return (Carson), Ω/km as [re, im]. */
+export interface CrossSectionMatrix {
+  crossSection: string;
+  layoutId: string;
+  phaseRotation: number;
+  sectionIds: string[];
+  conductors: string[];
+  impedanceOhmPerKm: Array<Array<[number, number]>>;
 }
 
 export type WorstQuantity =
@@ -129,4 +152,6 @@ export interface BondingResults {
   cases: CaseResult[];
   worst: WorstValue[];
   crossChecks: CrossCheck[];
+  /** Per distinct cross-section, the impedance matrix the solve used, for hand checks. */
+  impedanceMatrices: CrossSectionMatrix[];
 }

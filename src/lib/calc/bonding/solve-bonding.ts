@@ -7,8 +7,9 @@ import { CalculationError } from '../errors';
 import { caseSegmentSources, caseSources, circuitCurrentA } from './case-sources';
 import { bondingCrossChecks } from './cross-checks';
 import { type BondingNetworkModel, SVL_OFF_TAG, SVL_TAG, buildBondingNetwork } from './network-model';
-import type { BondingResults, CaseResult, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
+import type { BondingResults, CaseHandCheck, CaseResult, CrossSectionMatrix, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
 import { worstValues } from './worst-values';
+import { crossSectionImpedance, crossSectionKey } from './impedances';
 
 const PROFILE_STEPS = 6;
 
@@ -23,7 +24,7 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
   const cases = study.cases.map((c) => {
     const sources = caseSources(study, model, c);
     const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), sources, caseSegmentSources(study, model, c, sources), c);
-    return caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0);
+    return caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0, sources);
   });
   return {
     kind: 'bonding',
@@ -32,7 +33,52 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     cases,
     worst: worstValues(cases),
     crossChecks: bondingCrossChecks(study, model, cases),
+    impedanceMatrices: impedanceMatrices(study, model),
   };
+}
+
+/** Names a cross-section for the hand-check tables: layout, transposition, ECC positions. */
+const crossSectionName = (seg: BondingNetworkModel['topology']['segments'][number]) =>
+  `layout ${seg.layout.id}${seg.phaseRotation ? `, cables shifted ${seg.phaseRotation}` : ''}${seg.eccIds.length ? `, ECC ${seg.eccIds.map((e) => (seg.mirroredEccIds.has(e) ? `${e} mirrored` : e)).join(', ')}` : ''}`;
+
+function distinctCrossSections(model: BondingNetworkModel) {
+  const byKey = new Map<string, { seg: BondingNetworkModel['topology']['segments'][number]; sectionIds: Set<string> }>();
+  for (const seg of model.topology.segments) {
+    const key = crossSectionKey(seg);
+    if (!byKey.has(key)) byKey.set(key, { seg, sectionIds: new Set() });
+    byKey.get(key)!.sectionIds.add(seg.sectionId);
+  }
+  return [...byKey.values()];
+}
+
+function impedanceMatrices(study: BondingStudy, model: BondingNetworkModel): CrossSectionMatrix[] {
+  return distinctCrossSections(model).map(({ seg, sectionIds }) => {
+    const { z, labels } = crossSectionImpedance(study, seg);
+    return {
+      crossSection: crossSectionName(seg),
+      layoutId: seg.layout.id,
+      phaseRotation: seg.phaseRotation,
+      sectionIds: [...sectionIds],
+      conductors: labels,
+      impedanceOhmPerKm: z.map((row) => row.map((v): [number, number] => [v.re * 1000, v.im * 1000])),
+    };
+  });
+}
+
+function handCheck(study: BondingStudy, model: BondingNetworkModel, sources: Complex[], sheathMaxA: number[]): CaseHandCheck {
+  const cores = sources.slice(0, model.cables.length);
+  const referenceCurrentA = Math.max(0, ...cores.map(abs));
+  if (referenceCurrentA === 0) return { referenceCurrentA, emfVPerKmPerKA: [], sheathCurrentAPerKA: [] };
+  const perKA = 1000 / referenceCurrentA;
+  const emfVPerKmPerKA = distinctCrossSections(model).flatMap(({ seg }) => {
+    const { z, metallicCount } = crossSectionImpedance(study, seg);
+    return model.cables.map((cable, i) => {
+      let e: Complex = { re: 0, im: 0 };
+      cores.forEach((current, j) => (e = { re: e.re + z[i][metallicCount + j].re * current.re - z[i][metallicCount + j].im * current.im, im: e.im + z[i][metallicCount + j].re * current.im + z[i][metallicCount + j].im * current.re }));
+      return { crossSection: crossSectionName(seg), cable: cable.label, value: abs(e) * 1000 * perKA };
+    });
+  });
+  return { referenceCurrentA, emfVPerKmPerKA, sheathCurrentAPerKA: model.cables.map((cable, k) => ({ cable: cable.label, value: sheathMaxA[k] * perKA })) };
 }
 
 function compileOrExplain(model: BondingNetworkModel, conducting: boolean): CompiledNetwork {
@@ -60,7 +106,7 @@ function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof cas
   }
 }
 
-function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean): CaseResult {
+function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean, sources: Complex[]): CaseResult {
   const { topology, builder, cables, jointNodes } = model;
   const last = topology.joints.length - 1;
 
@@ -192,6 +238,12 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
     sheathCurrents,
     eccCurrents,
     lossFactors,
+    bondingLeadCurrents: topology.joints.flatMap((joint) =>
+      joint.join === 'cross' && joint.userJointIndex !== undefined
+        ? [{ jointIndex: joint.userJointIndex, maxA: Math.max(...cables.map((_, k) => abs(segmentCurrents[joint.index - 1][k]))) }]
+        : [],
+    ),
+    handCheck: handCheck(study, model, sources, sheathCurrents.map((s) => s.maxA)),
     profile: routeProfile(model, solution),
   };
 }
