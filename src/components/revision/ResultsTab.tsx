@@ -7,6 +7,7 @@ import { Caution, Empty } from '../ui/parts';
 import RouteProfileChart, { type Measurement } from './RouteProfileChart';
 import PhasorDiagram from './PhasorDiagram';
 import PointVoltagesTable, { SvlTable } from './results/PointVoltagesTable';
+import { CaseHandCheckTable, ImpedanceMatrices } from './results/HandCheckTables';
 
 export default function ResultsTab({ detail, measurements }: { detail: RevisionDetail; measurements?: { caseId: string; rows: Measurement[] } }) {
   const results = detail.revision.results;
@@ -57,6 +58,11 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
           <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Cable</th><th className="px-2 py-1">Largest sheath current</th><th className="px-2 py-1">Loss factor λ1'</th></tr></thead>
           <tbody>{c.sheathCurrents.map((s) => <tr key={s.cable} className="border-t border-rule"><td className="px-2 py-1">{s.cable}</td><td className="px-2 py-1 font-mono">{formatQuantity(s.maxA, 'A')}</td><td className="px-2 py-1 font-mono">{(() => { const l = c.lossFactors.find((x) => x.cable === s.cable); return l ? formatQuantity(l.lossFactor) : '—'; })()}</td></tr>)}</tbody>
         </table>
+      </section>
+      <section>
+        <h3 className="mb-2 font-semibold">Hand-check figures</h3>
+        <CaseHandCheckTable result={c} />
+        <ImpedanceMatrices results={results} />
       </section>
       {results.crossChecks.length > 0 && (
         <section>
