@@ -7,7 +7,7 @@ import { CalculationError } from '../errors';
 import { caseSegmentSources, caseSources, circuitCurrentA } from './case-sources';
 import { bondingCrossChecks } from './cross-checks';
 import { type BondingNetworkModel, SVL_OFF_TAG, SVL_TAG, buildBondingNetwork } from './network-model';
-import type { BondingResults, CaseHandCheck, CaseResult, CrossSectionMatrix, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
+import type { BondingResults, CaseHandCheck, CaseResult, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
 import { worstValues } from './worst-values';
 import { crossSectionImpedance, crossSectionKey } from './impedances';
 
@@ -21,10 +21,13 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     if (!compiled.has(conducting)) compiled.set(conducting, compileOrExplain(model, conducting));
     return compiled.get(conducting)!;
   };
+  // Each distinct cross-section's impedance matrix, once: the hand-check figures of every case use them.
+  const crossSections = distinctCrossSections(model).map((x) => ({ ...x, ...crossSectionImpedance(study, x.seg) }));
   const cases = study.cases.map((c) => {
     const sources = caseSources(study, model, c);
     const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), sources, caseSegmentSources(study, model, c, sources), c);
-    return caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0, sources);
+    const result = caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0);
+    return { ...result, handCheck: handCheck(model, crossSections, sources, result.sheathCurrents.map((s) => s.maxA)) };
   });
   return {
     kind: 'bonding',
@@ -33,7 +36,14 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     cases,
     worst: worstValues(cases),
     crossChecks: bondingCrossChecks(study, model, cases),
-    impedanceMatrices: impedanceMatrices(study, model),
+    impedanceMatrices: crossSections.map(({ seg, sectionIds, z, labels }) => ({
+      crossSection: crossSectionName(seg),
+      layoutId: seg.layout.id,
+      phaseRotation: seg.phaseRotation,
+      sectionIds: [...sectionIds],
+      conductors: labels,
+      impedanceOhmPerKm: z.map((row) => row.map((v): [number, number] => [v.re * 1000, v.im * 1000])),
+    })),
   };
 }
 
@@ -51,27 +61,14 @@ function distinctCrossSections(model: BondingNetworkModel) {
   return [...byKey.values()];
 }
 
-function impedanceMatrices(study: BondingStudy, model: BondingNetworkModel): CrossSectionMatrix[] {
-  return distinctCrossSections(model).map(({ seg, sectionIds }) => {
-    const { z, labels } = crossSectionImpedance(study, seg);
-    return {
-      crossSection: crossSectionName(seg),
-      layoutId: seg.layout.id,
-      phaseRotation: seg.phaseRotation,
-      sectionIds: [...sectionIds],
-      conductors: labels,
-      impedanceOhmPerKm: z.map((row) => row.map((v): [number, number] => [v.re * 1000, v.im * 1000])),
-    };
-  });
-}
+type CrossSectionData = ReturnType<typeof distinctCrossSections>[number] & ReturnType<typeof crossSectionImpedance>;
 
-function handCheck(study: BondingStudy, model: BondingNetworkModel, sources: Complex[], sheathMaxA: number[]): CaseHandCheck {
+function handCheck(model: BondingNetworkModel, crossSections: CrossSectionData[], sources: Complex[], sheathMaxA: number[]): CaseHandCheck {
   const cores = sources.slice(0, model.cables.length);
   const referenceCurrentA = Math.max(0, ...cores.map(abs));
   if (referenceCurrentA === 0) return { referenceCurrentA, emfVPerKmPerKA: [], sheathCurrentAPerKA: [] };
   const perKA = 1000 / referenceCurrentA;
-  const emfVPerKmPerKA = distinctCrossSections(model).flatMap(({ seg }) => {
-    const { z, metallicCount } = crossSectionImpedance(study, seg);
+  const emfVPerKmPerKA = crossSections.flatMap(({ seg, z, metallicCount }) => {
     return model.cables.map((cable, i) => {
       let e: Complex = { re: 0, im: 0 };
       cores.forEach((current, j) => (e = { re: e.re + z[i][metallicCount + j].re * current.re - z[i][metallicCount + j].im * current.im, im: e.im + z[i][metallicCount + j].re * current.im + z[i][metallicCount + j].im * current.re }));
@@ -106,7 +103,7 @@ function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof cas
   }
 }
 
-function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean, sources: Complex[]): CaseResult {
+function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean): Omit<CaseResult, 'handCheck'> {
   const { topology, builder, cables, jointNodes } = model;
   const last = topology.joints.length - 1;
 
@@ -243,7 +240,6 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         ? [{ jointIndex: joint.userJointIndex, maxA: Math.max(...cables.map((_, k) => abs(segmentCurrents[joint.index - 1][k]))) }]
         : [],
     ),
-    handCheck: handCheck(study, model, sources, sheathCurrents.map((s) => s.maxA)),
     profile: routeProfile(model, solution),
   };
 }
