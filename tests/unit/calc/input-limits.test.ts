@@ -97,3 +97,17 @@ describe('physically meaningless values are refused', () => {
     expect(issuesOf(referenceStudyInput({ earthing: { routeStartOhm: 1e-6, routeEndOhm: 1, linkBoxOhm: 5 } }))[0].field).toBe('earthing.routeStartOhm');
   });
 });
+
+describe('exposure: earth-return depth against the separations', () => {
+  it('refuses metalwork so far from the line that De is under five times the separation, naming the field', () => {
+    const fence = JSON.parse(readFileSync('tests/fixtures/studies/marrow-lane-fence-exposure.json', 'utf8'));
+    // De = 658.5·√(ρ/f) (Carson; IEEE Std 367); choose ρ so that De is four times the widest separation.
+    const xs = [...fence.sources.map((s: { xM: number; yM: number }) => s), fence.object];
+    let widest = 0;
+    for (const a of xs) for (const b of xs) widest = Math.max(widest, Math.hypot(a.xM - b.xM, a.yM - b.yM));
+    fence.soilResistivityOhmM = fence.frequencyHz * ((4 * widest) / 658.5) ** 2;
+    expect(issuesOf(fence)).toContainEqual({ field: 'soilResistivityOhmM', message: expect.stringContaining('not much larger than') });
+    fence.soilResistivityOhmM = fence.frequencyHz * ((6 * widest) / 658.5) ** 2;
+    expect(studySchema.safeParse(fence).success).toBe(true);
+  });
+});

@@ -4,7 +4,12 @@ import { buildRouteTopology, svlPlacement } from './route-topology';
 import { hasLocalEarth } from './network-model';
 import { earthReturnDepthM } from '../earth-return';
 
-/** Carson's simplified formulae hold while the earth-return depth is much larger than the spacing: here at least ten times (common practice). */
+/**
+ * Carson's simplified formulae hold while the earth-return depth De is much larger than the
+ * spacing D. The first term they drop (Carson 1926, series for P and Q) is k/(3√2) with
+ * k ≈ 1.85·D/De: at D/De = 0.1 it moves the reactance by about 4 %. Cable spacings are far
+ * below this in any real soil, so a ratio under ten means a wrong resistivity or wrong units.
+ */
 export const MIN_DEPTH_TO_SPACING = 10;
 /** Mirrors STUDY_LIMITS.conductors and maxRouteLengthM of the schema (the core cannot import zod modules). */
 const MAX_CONDUCTORS = 40;
