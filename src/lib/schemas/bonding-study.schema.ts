@@ -14,6 +14,8 @@ import { checkBondingStudy } from '../calc/bonding/study-checks';
 export const STUDY_LIMITS = {
   sections: 2000,
   cases: 200,
+  /** Sections × cases: each case returns figures for every section (some 5 MB per case at 2,000 sections). */
+  sectionCases: 20_000,
   /** Sheaths (three per circuit) and ECCs together in one cross-section. */
   conductors: 40,
   circuits: 13,

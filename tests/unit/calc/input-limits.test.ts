@@ -55,6 +55,14 @@ describe('sizes beyond the stated limits are refused, naming the field', () => {
     expect(issuesOf(referenceStudyInput({ cases }))).toContainEqual({ field: 'cases', message: `At most ${STUDY_LIMITS.cases} cases; split the study.` });
   });
 
+  it(`more than ${STUDY_LIMITS.sectionCases} sections × cases`, () => {
+    const n = 1000;
+    const cases = Array.from({ length: 21 }, (_, i) => ({ id: `N${i}`, name: 'n', kind: 'normal' as const, currents: [{ circuitId: 'C1', currentA: 100 }] }));
+    const input = referenceStudyInput({ sections: sections(...Array<number>(n).fill(10)), bonding: [{ kind: 'solid', sectionIds: Array.from({ length: n }, (_, i) => `S${i + 1}`) }], cases });
+    expect(issuesOf(input)).toContainEqual({ field: 'cases', message: expect.stringContaining('21 cases on 1000 sections') });
+    expect(bondingStudySchema.safeParse({ ...input, cases: cases.slice(0, 20) }).success).toBe(true);
+  });
+
   it(`more than ${STUDY_LIMITS.conductors} sheaths and ECCs in a cross-section`, () => {
     const input = referenceStudyInput() as Record<string, any>;
     input.circuits = Array.from({ length: 13 }, (_, i) => ({ id: `C${i + 1}`, name: 'c', cableTypeId: 'REF' }));

@@ -14,6 +14,7 @@ export const MIN_DEPTH_TO_SPACING = 10;
 /** Mirrors STUDY_LIMITS.conductors and maxRouteLengthM of the schema (the core cannot import zod modules). */
 const MAX_CONDUCTORS = 40;
 const MAX_ROUTE_M = 1_000_000;
+const MAX_SECTION_CASES = 20_000;
 
 export interface InputIssue {
   path: (string | number)[];
@@ -56,6 +57,9 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
   });
   if (study.circuits.length * 3 + study.eccs.length > MAX_CONDUCTORS) {
     report(['eccs'], `At most ${MAX_CONDUCTORS} sheaths and ECCs in one cross-section; this study has ${study.circuits.length * 3 + study.eccs.length} (three sheaths per circuit). Split the study.`);
+  }
+  if (study.sections.length * study.cases.length > MAX_SECTION_CASES) {
+    report(['cases'], `${study.cases.length} cases on ${study.sections.length} sections is more than the ${MAX_SECTION_CASES} section-cases one calculation returns (each case gives figures for every section): split the cases over studies.`);
   }
   const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
   if (routeM > MAX_ROUTE_M) report(['sections'], `The route is ${(routeM / 1000).toFixed(0)} km long, longer than any cable route (${MAX_ROUTE_M / 1000} km at most): check the units (metres).`);
@@ -207,7 +211,10 @@ function checkCases(study: BondingStudy, report: Report, circuits: Map<string, u
     }
     if (c.kind === 'internal-fault' && c.internalFault) {
       const f = c.internalFault;
-      const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
+      if (study.sections.length * study.cases.length > MAX_SECTION_CASES) {
+    report(['cases'], `${study.cases.length} cases on ${study.sections.length} sections is more than the ${MAX_SECTION_CASES} section-cases one calculation returns (each case gives figures for every section): split the cases over studies.`);
+  }
+  const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
       if ((f.jointIndex === undefined) === (f.chainageM === undefined)) report(at('internalFault', 'jointIndex'), 'Place the fault either at a joint or at a chainage, not both and not neither.');
       else if (f.jointIndex !== undefined && f.jointIndex > study.sections.length) report(at('internalFault', 'jointIndex'), `Joint ${f.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
       else if (f.chainageM !== undefined && f.chainageM >= routeM) report(at('internalFault', 'chainageM'), `The fault at ${f.chainageM} m lies beyond the route end (${routeM} m).`);
