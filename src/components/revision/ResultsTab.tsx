@@ -6,6 +6,8 @@ import { formatQuantity } from '../../lib/format';
 import { Caution, Empty } from '../ui/parts';
 import RouteProfileChart, { type Measurement } from './RouteProfileChart';
 import PhasorDiagram from './PhasorDiagram';
+import PointVoltagesTable, { SvlTable } from './results/PointVoltagesTable';
+import { CaseHandCheckTable, ImpedanceMatrices } from './results/HandCheckTables';
 
 export default function ResultsTab({ detail, measurements }: { detail: RevisionDetail; measurements?: { caseId: string; rows: Measurement[] } }) {
   const results = detail.revision.results;
@@ -31,27 +33,36 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
       <section>
         <h3 className="mb-2 font-semibold">Worst values over all cases</h3>
         <table className="w-full text-sm" data-testid="worst-values">
-          <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Quantity</th><th className="px-2 py-1">Value</th><th className="px-2 py-1">Case</th><th className="px-2 py-1">Where</th></tr></thead>
-          <tbody>{results.worst.map((w) => <tr key={w.quantity} className="border-t border-rule"><td className="px-2 py-1">{w.quantity.replace(/-/g, ' ')}</td><td className="px-2 py-1 font-mono">{formatQuantity(w.value, w.unit)}</td><td className="px-2 py-1">{w.caseId}</td><td className="px-2 py-1">{w.where}</td></tr>)}</tbody>
+          <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Quantity</th><th className="px-2 py-1">Value</th><th className="px-2 py-1">Measured</th><th className="px-2 py-1">Case</th><th className="px-2 py-1">Where</th></tr></thead>
+          <tbody>{results.worst.map((w) => <tr key={w.quantity} className="border-t border-rule"><td className="px-2 py-1">{w.quantity.replace(/-/g, ' ')}</td><td className="px-2 py-1 font-mono">{formatQuantity(w.value, w.unit)}</td><td className="px-2 py-1">{w.reference ?? (w.unit === 'V' ? 'to remote earth' : '')}</td><td className="px-2 py-1">{w.caseId}</td><td className="px-2 py-1">{w.where}</td></tr>)}</tbody>
         </table>
       </section>
       <section>
         <label className="text-sm font-semibold">Case <select aria-label="Case" className="ml-2 rounded border border-rule bg-panel px-2 py-1" value={c.caseId} onChange={(e) => setCaseId(e.target.value)}>{results.cases.map((x) => <option key={x.caseId} value={x.caseId}>{x.caseId}: {x.name}</option>)}</select></label>
+        <p className="text-xs text-ink-soft">Route plot: sheath and ECC voltages to remote earth.</p>
         <RouteProfileChart result={c} limitV={limit} measurements={measurements?.caseId === c.caseId ? measurements.rows : []} />
       </section>
       <section className="flex flex-wrap gap-6">
         {worstPoint && <PhasorDiagram point={worstPoint} />}
-        <table className="flex-1 text-sm">
-          <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Point</th><th className="px-2 py-1">Highest sheath V</th><th className="px-2 py-1">Across joint V</th><th className="px-2 py-1">Earth V</th></tr></thead>
-          <tbody>{c.points.map((p) => <tr key={p.label} className="border-t border-rule"><td className="px-2 py-1">{p.label}</td><td className="px-2 py-1 font-mono">{formatQuantity(p.maxV)}</td><td className="px-2 py-1 font-mono">{p.acrossJoint.length ? formatQuantity(Math.max(...p.acrossJoint.map((a) => a.voltageV))) : '—'}</td><td className="px-2 py-1 font-mono">{p.earthBarV === undefined ? '—' : formatQuantity(p.earthBarV)}</td></tr>)}</tbody>
-        </table>
+        <PointVoltagesTable result={c} />
       </section>
+      {c.svls.length > 0 && (
+        <section>
+          <h3 className="mb-2 font-semibold">Sheath voltage limiters</h3>
+          <SvlTable result={c} />
+        </section>
+      )}
       <section>
         <h3 className="mb-2 font-semibold">Sheath currents and loss factors</h3>
         <table className="w-full text-sm">
           <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Cable</th><th className="px-2 py-1">Largest sheath current</th><th className="px-2 py-1">Loss factor λ1'</th></tr></thead>
           <tbody>{c.sheathCurrents.map((s) => <tr key={s.cable} className="border-t border-rule"><td className="px-2 py-1">{s.cable}</td><td className="px-2 py-1 font-mono">{formatQuantity(s.maxA, 'A')}</td><td className="px-2 py-1 font-mono">{(() => { const l = c.lossFactors.find((x) => x.cable === s.cable); return l ? formatQuantity(l.lossFactor) : '—'; })()}</td></tr>)}</tbody>
         </table>
+      </section>
+      <section>
+        <h3 className="mb-2 font-semibold">Hand-check figures</h3>
+        <CaseHandCheckTable result={c} />
+        <ImpedanceMatrices results={results} />
       </section>
       {results.crossChecks.length > 0 && (
         <section>

@@ -9,6 +9,6 @@ export const MU0_OVER_2PI = 2e-7;
 export const CARSON_DEPTH_COEFFICIENT = 658.5;
 
 /** The engine's version, stored with every result so a recomputation can be compared. */
-export const ENGINE_VERSION = '1.0.0';
+export const ENGINE_VERSION = '2.0.0';
 
 export const angularFrequency = (frequencyHz: number): number => 2 * Math.PI * frequencyHz;

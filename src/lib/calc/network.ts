@@ -6,7 +6,11 @@ import { invertComplex, multiplyComplex } from './dense-complex';
 // the reference, and three kinds of element. Every bonding arrangement and exposure is a
 // topology built from these; cases differ only in their source phasors.
 
-/** The reference node: local earth at zero potential (Carson's earth-return formulation). */
+/**
+ * The reference node: remote earth at zero potential (Carson's earth-return formulation). It is
+ * not the local earth at a link box or station: each of those is a node of its own, joined to
+ * this reference through its electrode resistance.
+ */
 export const EARTH = -1;
 
 /**
@@ -62,6 +66,8 @@ export class NetworkBuilder {
   readonly segments: Segment[] = [];
   private readonly admittances: Admittance[] = [];
   private readonly injections: Injection[] = [];
+  /** Solid bonds as given, before merging: kept so an independent solver can rebuild the network. */
+  private readonly bonds: Array<[number, number]> = [];
 
   /** A new node; `orderKey` (position along the route) keeps the equations banded. */
   addNode(orderKey: number, label: string): number {
@@ -74,6 +80,7 @@ export class NetworkBuilder {
 
   /** Joins two nodes with no impedance between them (a solid bond). */
   connect(a: number, b: number): void {
+    this.bonds.push([a, b]);
     const ra = this.find(a);
     const rb = this.find(b);
     if (ra !== rb) this.parent[Math.max(ra, rb)] = Math.min(ra, rb);
@@ -104,6 +111,21 @@ export class NetworkBuilder {
 
   label(node: number): string {
     return this.labels[node];
+  }
+
+  get nodeCount(): number {
+    return this.labels.length;
+  }
+
+  /** Every element as added (nodes unmerged), for rebuilding the network with another solver. */
+  elements(activeTags: ReadonlySet<string> = new Set()) {
+    return {
+      nodeCount: this.labels.length,
+      bonds: this.bonds.map(([a, b]) => [a, b] as [number, number]),
+      admittances: this.admittances.filter((a) => !a.tag || activeTags.has(a.tag)).map(({ a, b, admittanceS }) => ({ a, b, admittanceS })),
+      segments: this.segments,
+      injections: this.injections.map((i) => ({ ...i })),
+    };
   }
 
   /** Numbers the unknowns along the route, checks every node reaches earth, assembles and factorises. */
@@ -143,7 +165,14 @@ export class NetworkBuilder {
 
   private assertEarthed(n: number, unknown: (node: number) => number, admittances: Admittance[]) {
     const parent = Array.from({ length: n + 1 }, (_, i) => i);
-    const find = (x: number): number => (parent[x] === x ? x : (parent[x] = find(parent[x])));
+    // Iterative with path halving: a recursive find overflows the stack on long routes.
+    const find = (x: number): number => {
+      while (parent[x] !== x) {
+        parent[x] = parent[parent[x]];
+        x = parent[x];
+      }
+      return x;
+    };
     const join = (a: number, b: number) => {
       parent[find(a === EARTH ? n : a)] = find(b === EARTH ? n : b);
     };
@@ -202,12 +231,16 @@ export class CompiledNetwork {
     return this.unknown(node);
   }
 
-  /** The nodal current vector J for a case (Y·V = J). */
-  rightHandSide(sources: Complex[]): { re: Float64Array; im: Float64Array } {
+  /**
+   * The nodal current vector J for a case (Y·V = J). `segmentSources(k)`, when given, is the
+   * source vector segment k sees (a core current that changes along the route, as on either
+   * side of an internal fault); injections always use `sources`.
+   */
+  rightHandSide(sources: Complex[], segmentSources?: SegmentSources): { re: Float64Array; im: Float64Array } {
     const re = new Float64Array(this.size);
     const im = new Float64Array(this.size);
     this.segments.forEach((seg, k) => {
-      const drive = segmentDrive(seg, sources);
+      const drive = segmentDrive(seg, segmentSources ? segmentSources(k) : sources);
       const { from, to } = this.segmentUnknowns[k];
       drive.forEach((d, i) => {
         if (from[i] !== EARTH) {
@@ -228,15 +261,18 @@ export class CompiledNetwork {
     return { re, im };
   }
 
-  solve(sources: Complex[]): NetworkSolution {
-    const { re, im } = this.rightHandSide(sources);
+  solve(sources: Complex[], segmentSources?: SegmentSources): NetworkSolution {
+    const { re, im } = this.rightHandSide(sources, segmentSources);
     solveFactored(this.lu, re, im);
     for (let i = 0; i < re.length; i++) {
       if (!Number.isFinite(re[i]) || !Number.isFinite(im[i])) throw new IllConditionedError(i);
     }
-    return new NetworkSolution(re, im, this.segments, this.segmentUnknowns, this.unknown, sources);
+    return new NetworkSolution(re, im, this.segments, this.segmentUnknowns, this.unknown, segmentSources ?? (() => sources));
   }
 }
+
+/** The source vector each segment sees, by segment index. */
+export type SegmentSources = (segmentIndex: number) => Complex[];
 
 /** inv(Z)·Z_ms·I_s: the short-circuit current each conductor's induced EMF drives (plain arithmetic: this runs per segment and case). */
 function segmentDrive(seg: Segment, sources: Complex[]): Complex[] {
@@ -261,10 +297,10 @@ export class NetworkSolution {
     private readonly segments: Segment[],
     private readonly segmentUnknowns: Array<{ from: number[]; to: number[] }>,
     private readonly unknown: (node: number) => number,
-    private readonly sources: Complex[],
+    private readonly sources: SegmentSources,
   ) {}
 
-  /** Voltage of a node to earth, V. */
+  /** Voltage of a node to the reference (remote earth), V. */
   voltage(node: number): Complex {
     const u = this.unknown(node);
     return u === EARTH ? ZERO : { re: this.re[u], im: this.im[u] };
@@ -281,7 +317,7 @@ export class NetworkSolution {
       dropRe[i] = (from[i] === EARTH ? 0 : this.re[from[i]]) - (to[i] === EARTH ? 0 : this.re[to[i]]);
       dropIm[i] = (from[i] === EARTH ? 0 : this.im[from[i]]) - (to[i] === EARTH ? 0 : this.im[to[i]]);
     }
-    const drive = segmentDrive(seg, this.sources);
+    const drive = segmentDrive(seg, this.sources(index));
     return seg.coupling.zInv.map((row, i) => {
       let re = 0;
       let im = 0;

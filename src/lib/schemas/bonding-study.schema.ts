@@ -5,11 +5,44 @@ import { checkBondingStudy } from '../calc/bonding/study-checks';
 // the stored JSON. Units are in the field names. Cross-field rules (geometry, topology) live
 // in the calculation core and are reported here field by field.
 
+/**
+ * Sizes the core accepts. Beyond them a study is refused with the field named, rather than
+ * solved for minutes or overflowing memory: 2,000 sections is more than ten times the longest
+ * jointed land route; 40 metallic conductors in a cross-section is four double-circuit routes
+ * with ECCs.
+ */
+export const STUDY_LIMITS = {
+  sections: 2000,
+  cases: 200,
+  /** Sections × cases: each case returns figures for every section (some 5 MB per case at 2,000 sections). */
+  sectionCases: 20_000,
+  /** Sheaths (three per circuit) and ECCs together in one cross-section. */
+  conductors: 40,
+  circuits: 13,
+  eccs: 10,
+  cableTypes: 50,
+  layouts: 200,
+  svls: 2001,
+  overrides: 2001,
+  /** Shortest section: below a millimetre a length is a typing error, not a cable. */
+  minSectionLengthM: 0.001,
+  /** Longest section and route: above the longest cable routes built (some 760 km; from memory). */
+  maxRouteLengthM: 1_000_000,
+  /** Largest current in any case: above any power-system fault level (common practice). */
+  maxCurrentA: 500_000,
+  /** Earth resistances the solve stays well conditioned for. */
+  minEarthOhm: 0.001,
+  maxEarthOhm: 1_000_000,
+} as const;
+
+const L = STUDY_LIMITS;
+const atMost = (n: number, what: string) => `At most ${n} ${what}; split the study.`;
+
 const id = z.string().trim().min(1, 'Give an identifier.').max(40);
 const positive = (what: string) => z.number({ error: `${what} must be a number.` }).positive(`${what} must be greater than zero.`);
 const nonNegative = (what: string) => z.number({ error: `${what} must be a number.` }).nonnegative(`${what} cannot be negative.`);
 
-export const cableTypeSchema = z.object({
+export const cableTypeSchema = z.strictObject({
   id,
   name: z.string().min(1),
   conductorResistanceOhmPerKm: positive('Conductor a.c. resistance at operating temperature'),
@@ -20,15 +53,17 @@ export const cableTypeSchema = z.object({
   overallDiameterMm: positive('Overall cable diameter'),
   /** Power-frequency withstand of the oversheath, r.m.s., for the fault duration. */
   oversheathWithstandKv: positive('Oversheath withstand voltage'),
+  /** λ1 the cable's current rating assumed (IEC 60287-1-1); the study's λ1 is checked against it. */
+  ratingLossFactor: nonNegative('Loss factor assumed in the rating').max(10).optional(),
 });
 
-export const circuitSchema = z.object({
+export const circuitSchema = z.strictObject({
   id,
   name: z.string().min(1),
   cableTypeId: id,
 });
 
-export const eccSchema = z.object({
+export const eccSchema = z.strictObject({
   id,
   name: z.string().min(1),
   resistanceOhmPerKm: positive('ECC resistance'),
@@ -38,10 +73,13 @@ export const eccSchema = z.object({
   toSectionId: id,
   /** Cross the ECC to the mirror position at the middle of its run. */
   transposedAtMidpoint: z.boolean().default(false),
+  /** For the adiabatic check of its fault current; no check without it. */
+  crossSectionMm2: positive('ECC cross-section').max(5000).optional(),
+  material: z.enum(['copper', 'aluminium']).default('copper'),
 });
 
 const formationSchema = z.discriminatedUnion('formation', [
-  z.object({
+  z.strictObject({
     circuitId: id,
     formation: z.literal('trefoil'),
     /** Axial spacing of adjacent cables; touching trefoil equals the overall diameter. */
@@ -49,47 +87,49 @@ const formationSchema = z.discriminatedUnion('formation', [
     depthM: positive('Depth'),
     centreXM: z.number().default(0),
   }),
-  z.object({
+  z.strictObject({
     circuitId: id,
     formation: z.literal('flat'),
     spacingM: positive('Spacing'),
     depthM: positive('Depth'),
     centreXM: z.number().default(0),
   }),
-  z.object({
+  z.strictObject({
     circuitId: id,
     formation: z.literal('coordinates'),
     /** Positions of the cables carrying phases a, b, c (x across the route, depth below ground). */
-    positions: z.array(z.object({ xM: z.number(), depthM: positive('Depth') })).length(3, 'Give three positions: a, b and c.'),
+    positions: z.array(z.strictObject({ xM: z.number(), depthM: positive('Depth') })).length(3, 'Give three positions: a, b and c.'),
   }),
 ]);
 
-export const layoutSchema = z.object({
+export const layoutSchema = z.strictObject({
   id,
   name: z.string().default(''),
-  circuits: z.array(formationSchema).min(1, 'Place at least one circuit.'),
-  eccs: z.array(z.object({ eccId: id, xM: z.number(), depthM: positive('ECC depth') })).default([]),
+  circuits: z.array(formationSchema).min(1, 'Place at least one circuit.').max(L.circuits, atMost(L.circuits, 'circuits')),
+  eccs: z.array(z.strictObject({ eccId: id, xM: z.number(), depthM: positive('ECC depth') })).max(L.eccs, atMost(L.eccs, 'ECCs')).default([]),
 });
 
-export const sectionSchema = z.object({
+export const sectionSchema = z.strictObject({
   id,
-  lengthM: positive('Section length'),
+  lengthM: positive('Section length')
+    .min(L.minSectionLengthM, 'A section shorter than a millimetre is not a cable section: check the units (metres).')
+    .max(L.maxRouteLengthM, `A section longer than ${L.maxRouteLengthM / 1000} km is longer than any cable route: check the units (metres).`),
   layoutId: id,
   /** Cable transposition at the section's start: the cables shift this many positions (0, 1, 2). */
   phaseRotation: z.union([z.literal(0), z.literal(1), z.literal(2)]).default(0),
 });
 
 export const bondingGroupSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('solid'), sectionIds: z.array(id).min(1) }),
-  z.object({
+  z.strictObject({ kind: z.literal('solid'), sectionIds: z.array(id).min(1).max(L.sections) }),
+  z.strictObject({
     kind: z.literal('single-point'),
-    sectionIds: z.array(id).min(1),
+    sectionIds: z.array(id).min(1).max(L.sections),
     earthedAt: z.enum(['start', 'end', 'middle']),
   }),
-  z.object({ kind: z.literal('cross-bonded'), sectionIds: z.array(id) }),
+  z.strictObject({ kind: z.literal('cross-bonded'), sectionIds: z.array(id).max(L.sections) }),
 ]);
 
-export const svlSchema = z.object({
+export const svlSchema = z.strictObject({
   /** Joint number along the route: 0 is the route start, n the end, k the joint after the k-th section. */
   jointIndex: z.number().int().nonnegative(),
   connection: z.enum(['to-earth', 'across-joint']),
@@ -97,53 +137,150 @@ export const svlSchema = z.object({
   /** Temporary-overvoltage capability for the fault duration (maker's data). */
   tovRatingV: positive('SVL temporary-overvoltage capability'),
   conductingResistanceOhm: positive('SVL resistance when conducting').default(0.5),
+  /** Energy the SVL absorbs without damage (maker's data), kJ; the energy estimate is shown without a limit when absent. */
+  energyRatingKJ: positive('SVL energy rating').optional(),
 });
 
 const phase = z.enum(['a', 'b', 'c']);
+const faultCurrent = (what: string) =>
+  positive(what).max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`);
+/** A current phasor in a fault, A and degrees; angles matter when two currents meet. */
+const currentPhasor = (what: string) => z.strictObject({ currentA: faultCurrent(what), angleDeg: z.number().default(0) });
+/** Share of the fault current returning through the source-end station grid; the rest returns by paths outside this route. 1 (the default) is all of it. */
+const sourceStationShare = z.number().min(0, 'The share cannot be negative.').max(1, 'The share cannot exceed 1.').default(1);
 
-export const caseSchema = z.object({
+export const caseKinds = ['normal', 'emergency', 'three-phase-fault', 'earth-fault', 'phase-phase-earth-fault', 'internal-fault', 'station-gpr'] as const;
+
+export const caseSchema = z.strictObject({
   id,
   name: z.string().min(1),
-  kind: z.enum(['normal', 'emergency', 'three-phase-fault', 'earth-fault']),
+  /**
+   * normal and emergency: load, each with its own currents; three-phase-fault, earth-fault,
+   * phase-phase-earth-fault: through faults beyond an end of the route; internal-fault: a
+   * core-to-sheath breakdown on the route; station-gpr: a station earth rise from a fault
+   * elsewhere, carried into the route ends.
+   */
+  kind: z.enum(caseKinds),
   /** Fault duration including back-up clearance, s; needed for faults. */
-  durationS: positive('Duration').optional(),
+  durationS: positive('Duration').max(10, 'A fault lasting more than 10 s is not cleared: check the units (seconds).').optional(),
   /** Balanced positive-sequence currents per circuit (load or three-phase fault). */
-  currents: z.array(z.object({ circuitId: id, currentA: nonNegative('Current'), angleDeg: z.number().default(0) })).default([]),
+  currents: z
+    .array(z.strictObject({ circuitId: id, currentA: nonNegative('Current').max(L.maxCurrentA, `A current above ${L.maxCurrentA / 1000} kA is above any fault level: check the units (amperes).`), angleDeg: z.number().default(0) }))
+    .max(L.circuits, atMost(L.circuits, 'circuit currents'))
+    .default([]),
   earthFault: z
-    .object({
+    .strictObject({
       circuitId: id,
       phase,
-      currentA: positive('Earth-fault current'),
+      currentA: faultCurrent('Earth-fault current'),
       /** The fault lies beyond this end of the route; the source neutral is at the other end. */
       beyond: z.enum(['start', 'end']).default('end'),
+      sourceStationShare,
     })
     .optional(),
+  /** Two phases faulted together to earth beyond an end: each phase's current; the earth takes their sum. */
+  phasePhaseEarthFault: z
+    .strictObject({
+      circuitId: id,
+      phases: z.tuple([phase, phase]),
+      currents: z.tuple([currentPhasor('Fault current'), currentPhasor('Fault current')]),
+      beyond: z.enum(['start', 'end']).default('end'),
+      sourceStationShare,
+    })
+    .optional(),
+  /**
+   * A core-to-sheath breakdown on the route: at a joint (the sheath arriving at it, or leaving
+   * it) or at a chainage, fed from the start, the end or both; each infeed returns to the
+   * source neutral at its own station.
+   */
+  internalFault: z
+    .strictObject({
+      circuitId: id,
+      phase,
+      jointIndex: z.number().int().nonnegative().optional(),
+      side: z.enum(['arriving', 'leaving']).default('arriving'),
+      chainageM: z.number().positive('The fault chainage must lie inside the route.').optional(),
+      /** Current flowing from the route start towards the fault. */
+      fromStart: z.strictObject({ currentA: nonNegative('Infeed from the start').max(L.maxCurrentA), angleDeg: z.number().default(0) }).default({ currentA: 0, angleDeg: 0 }),
+      /** Current flowing from the route end towards the fault. */
+      fromEnd: z.strictObject({ currentA: nonNegative('Infeed from the end').max(L.maxCurrentA), angleDeg: z.number().default(0) }).default({ currentA: 0, angleDeg: 0 }),
+    })
+    .optional(),
+  /**
+   * Station earth potential rise from a fault elsewhere, as the rise the station would have
+   * without this route: carried in as a current of GPR/R_grid into the station grid (a Norton
+   * source), so the route's own sheaths and earths load it down.
+   */
+  stationGpr: z
+    .array(z.strictObject({ station: z.enum(['start', 'end']), voltageV: positive('Station earth potential rise').max(1e6), angleDeg: z.number().default(0) }))
+    .max(2)
+    .default([]),
   svlsConducting: z.boolean().default(false),
 });
 
-export const earthingSchema = z.object({
-  routeStartOhm: positive('Earth resistance at the route start'),
-  routeEndOhm: positive('Earth resistance at the route end'),
-  linkBoxOhm: positive('Earth resistance at link boxes'),
-  overrides: z.array(z.object({ jointIndex: z.number().int().nonnegative(), resistanceOhm: positive('Earth resistance') })).default([]),
+const earthOhm = (what: string) =>
+  positive(what)
+    .min(L.minEarthOhm, `${what} below ${L.minEarthOhm * 1000} mΩ is not an electrode: check the units (ohms).`)
+    .max(L.maxEarthOhm, `${what} above ${L.maxEarthOhm / 1000} kΩ is not an electrode: for a box with no electrode, say so with "noElectrode".`);
+
+/**
+ * The electrode at one joint, replacing the study-wide value there. `noElectrode` is for a
+ * cross-bonding link box installed without an electrode of its own: its SVL star point then
+ * connects to nothing but the SVLs.
+ */
+export const earthingOverrideSchema = z
+  .strictObject({
+    jointIndex: z.number().int().nonnegative(),
+    resistanceOhm: earthOhm('Earth resistance').optional(),
+    noElectrode: z.literal(true).optional(),
+  })
+  .refine((o) => (o.resistanceOhm === undefined) !== (o.noElectrode === undefined), {
+    message: 'Give either the electrode resistance or "noElectrode": true, not both and not neither.',
+    path: ['resistanceOhm'],
+  });
+
+/**
+ * Electrodes: each route end has its station grid, each link box (cross-bonding or earthing)
+ * its electrode; every one is a node of the network joined to remote earth through this
+ * resistance.
+ */
+export const earthingSchema = z.strictObject({
+  routeStartOhm: earthOhm('Earth resistance at the route start'),
+  routeEndOhm: earthOhm('Earth resistance at the route end'),
+  linkBoxOhm: earthOhm('Earth resistance at link boxes'),
+  overrides: z.array(earthingOverrideSchema).max(L.overrides, atMost(L.overrides, 'earthing overrides')).default([]),
 });
 
-export const bondingStudyBaseSchema = z.object({
+export const bondingStudyBaseSchema = z.strictObject({
   kind: z.literal('bonding'),
   title: z.string().min(1, 'Give the study a title.'),
   frequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'Frequency must be 50 or 60 Hz.' }),
-  soilResistivityOhmM: positive('Soil resistivity'),
-  cableTypes: z.array(cableTypeSchema).min(1, 'Add a cable type.'),
-  circuits: z.array(circuitSchema).min(1, 'Add a circuit.'),
-  eccs: z.array(eccSchema).default([]),
-  layouts: z.array(layoutSchema).min(1, 'Add a layout.'),
-  sections: z.array(sectionSchema).min(1, 'Add at least one route section.'),
-  bonding: z.array(bondingGroupSchema).min(1, 'Say how the sheaths are bonded.'),
+  soilResistivityOhmM: positive('Soil resistivity').max(100_000, 'A soil resistivity above 100 000 Ω·m is not soil: check the units (Ω·m).'),
+  cableTypes: z.array(cableTypeSchema).min(1, 'Add a cable type.').max(L.cableTypes, atMost(L.cableTypes, 'cable types')),
+  circuits: z.array(circuitSchema).min(1, 'Add a circuit.').max(L.circuits, atMost(L.circuits, 'circuits')),
+  eccs: z.array(eccSchema).max(L.eccs, atMost(L.eccs, 'ECCs')).default([]),
+  layouts: z.array(layoutSchema).min(1, 'Add a layout.').max(L.layouts, atMost(L.layouts, 'layouts')),
+  sections: z.array(sectionSchema).min(1, 'Add at least one route section.').max(L.sections, atMost(L.sections, 'route sections')),
+  bonding: z.array(bondingGroupSchema).min(1, 'Say how the sheaths are bonded.').max(L.sections, atMost(L.sections, 'bonding groups')),
   earthing: earthingSchema,
   /** Impedance of each cross-bonding lead, mΩ (0: ideal). */
-  bondingLeadMilliohm: z.object({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).default({ r: 0, x: 0 }),
-  svls: z.array(svlSchema).default([]),
-  cases: z.array(caseSchema).min(1, 'Add at least one case.'),
+  bondingLeadMilliohm: z.strictObject({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).default({ r: 0, x: 0 }),
+  svls: z.array(svlSchema).max(L.svls, atMost(L.svls, 'SVL entries')).default([]),
+  /** Cross-bonding and earthing leads, for their adiabatic check; no check without them. */
+  bondingLeads: z.strictObject({ crossSectionMm2: positive('Bonding lead cross-section').max(5000), material: z.enum(['copper', 'aluminium']).default('copper') }).optional(),
+  /** Temperatures for the adiabatic checks of ECCs and leads, °C (defaults: common practice for PVC-covered copper up to 300 mm², from memory). */
+  adiabatic: z
+    .strictObject({ initialC: z.number().min(-40).max(250).default(50), finalC: z.number().min(0).max(1100).default(160) })
+    .refine((a) => a.finalC > a.initialC, { message: 'The final temperature must be above the initial one.', path: ['finalC'] })
+    .default({ initialC: 50, finalC: 160 }),
+  /** Where people stand at link boxes and route ends, for the IEEE Std 80 tolerable touch voltage. */
+  touch: z
+    .strictObject({
+      bodyWeightKg: z.union([z.literal(50), z.literal(70)]).default(50),
+      surfaceLayer: z.strictObject({ resistivityOhmM: positive('Surface layer resistivity'), thicknessM: positive('Surface layer thickness') }).optional(),
+    })
+    .default({ bodyWeightKg: 50 }),
+  cases: z.array(caseSchema).min(1, 'Add at least one case.').max(L.cases, atMost(L.cases, 'cases')),
 });
 
 // Cross-field checks run once every field is valid on its own, so they can trust the numbers.

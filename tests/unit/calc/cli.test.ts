@@ -46,3 +46,32 @@ describe('npm run calc', () => {
     expect(run.stderr).toContain('sections.1.lengthM: Section length must be greater than zero.');
   });
 });
+
+describe('npm run calc: input it cannot read gives one line and exit 1', () => {
+  const dir = mkdtempSync(path.join(tmpdir(), 'calc-bad-'));
+  const oneLine = (run: ReturnType<typeof calc>) => {
+    expect(run.status).toBe(1);
+    const lines = run.stderr.trim().split('\n');
+    expect(lines).toHaveLength(1);
+    expect(run.stderr).not.toMatch(/\n\s+at /);
+    return lines[0];
+  };
+
+  it('a missing file', () => {
+    expect(oneLine(calc(path.join(dir, 'nowhere.json')))).toMatch(/^Cannot read the study .*nowhere\.json: no such file\.$/);
+  });
+
+  it('unreadable JSON', () => {
+    const file = path.join(dir, 'broken.json');
+    writeFileSync(file, '{ "kind": "bonding", ');
+    expect(oneLine(calc(file))).toMatch(/^The study .*broken\.json is not valid JSON: /);
+  });
+
+  it('a malformed --limits file, a missing one, and --limits with nothing after it', () => {
+    const limits = path.join(dir, 'limits.json');
+    writeFileSync(limits, JSON.stringify({ name: 'x', version: 'one', limits: {} }));
+    expect(oneLine(calc('tests/fixtures/studies/fernhollow-cross-bonded.json', '--limits', limits))).toMatch(/^The limit set .*limits\.json is not a limit set: version: /);
+    expect(oneLine(calc('tests/fixtures/studies/fernhollow-cross-bonded.json', '--limits', path.join(dir, 'none.json')))).toContain('no such file');
+    expect(oneLine(calc('tests/fixtures/studies/fernhollow-cross-bonded.json', '--limits'))).toBe('--limits needs a limit-set file after it.');
+  });
+});

@@ -1,5 +1,6 @@
 import type { BondingStudy, CableType } from '../../schemas/bonding-study.schema';
 import { impedanceMatrix, type LongitudinalConductor } from '../earth-return';
+import type { Complex } from '../complex';
 import { type CrossSectionCoupling, crossSectionCoupling } from '../network';
 import { cablePositions, positionOfPhase } from './cross-section';
 import type { RouteSegment } from './route-topology';
@@ -9,6 +10,17 @@ import type { RouteSegment } from './route-topology';
  * ECCs present; sources are the phase cores in the same circuit/phase order.
  */
 export function segmentCoupling(study: BondingStudy, segment: RouteSegment): CrossSectionCoupling {
+  const { z, metallicCount } = crossSectionImpedance(study, segment);
+  const zmm = z.slice(0, metallicCount).map((row) => row.slice(0, metallicCount));
+  const zms = z.slice(0, metallicCount).map((row) => row.slice(metallicCount));
+  return crossSectionCoupling(zmm, zms, z.slice(metallicCount).map((_, i) => i));
+}
+
+/**
+ * The per-metre impedance matrix of a cross-section with earth return, Ω/m: sheaths (circuit
+ * by circuit, phases a, b, c), ECCs, then the phase cores in the same order.
+ */
+export function crossSectionImpedance(study: BondingStudy, segment: RouteSegment): { z: Complex[][]; metallicCount: number; labels: string[] } {
   const cableType = (circuitId: string): CableType =>
     study.cableTypes.find((t) => t.id === study.circuits.find((c) => c.id === circuitId)!.cableTypeId)!;
 
@@ -40,9 +52,9 @@ export function segmentCoupling(study: BondingStudy, segment: RouteSegment): Cro
     const [m, c] = i < j ? [i, j] : [j, i];
     return m < sheaths.length && c - nm === m ? sheaths[m].gmrM : undefined;
   });
-  const zmm = z.slice(0, nm).map((row) => row.slice(0, nm));
-  const zms = z.slice(0, nm).map((row) => row.slice(nm));
-  return crossSectionCoupling(zmm, zms, cores.map((_, i) => i));
+  const cableLabels = study.circuits.flatMap((c) => ['a', 'b', 'c'].map((p) => `${c.id}-${p}`));
+  const labels = [...cableLabels.map((l) => `sheath ${l}`), ...segment.eccIds.map((id) => `ECC ${id}`), ...cableLabels.map((l) => `core ${l}`)];
+  return { z, metallicCount: nm, labels };
 }
 
 /** A stable key for segments that share a cross-section, so their coupling is computed once. */

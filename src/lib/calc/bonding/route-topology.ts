@@ -104,6 +104,10 @@ export function buildRouteTopology(study: BondingStudy): RouteTopology {
   };
   midEarths.forEach((x) => addPoint(x, true));
   eccMidpoints.forEach((x) => addPoint(x, false));
+  // An internal fault at a chainage needs a node there; a straight split changes nothing else.
+  for (const c of study.cases) {
+    if (c.kind === 'internal-fault' && c.internalFault?.chainageM !== undefined) addPoint(c.internalFault.chainageM, false);
+  }
 
   const chainages = [...points.keys()].sort((p, q) => p - q);
   const joints: RouteJoint[] = chainages.map((c, index) => {
@@ -145,6 +149,11 @@ export function buildRouteTopology(study: BondingStudy): RouteTopology {
     eccSpans.set(ecc.id, { fromJoint: on[0].index, toJoint: on[on.length - 1].index + 1 });
   }
   return { segments, joints, eccSpans, lengthM: total };
+}
+
+/** The joint nearest a chainage (internal-fault split points are added at exactly their chainage). */
+export function jointAtChainage(topology: RouteTopology, chainageM: number): RouteJoint {
+  return topology.joints.reduce((best, j) => (Math.abs(j.chainageM - chainageM) < Math.abs(best.chainageM - chainageM) ? j : best));
 }
 
 /** Whether a joint has an open sheath end or a cross-bonding link box, where an SVL can sit. */

@@ -1,14 +1,15 @@
 import type { BondingStudy, StudyCase } from '../../schemas/bonding-study.schema';
-import { type Complex, abs, argDeg, sub } from '../complex';
+import { type Complex, abs, argDeg, mul, sub } from '../complex';
 import { ENGINE_VERSION } from '../constants';
 import { IllConditionedError } from '../banded-lu';
-import { type CompiledNetwork, FloatingNodesError, type NetworkSolution } from '../network';
+import { type CompiledNetwork, FloatingNodesError, type NetworkSolution, type SegmentSources } from '../network';
 import { CalculationError } from '../errors';
-import { caseSources, circuitCurrentA } from './case-sources';
+import { caseSegmentSources, caseSources, circuitCurrentA } from './case-sources';
 import { bondingCrossChecks } from './cross-checks';
-import { type BondingNetworkModel, SVL_TAG, buildBondingNetwork } from './network-model';
-import type { BondingResults, CaseResult, PointKind, PointResult, ProfileSeries } from './results';
+import { type BondingNetworkModel, SVL_OFF_TAG, SVL_TAG, buildBondingNetwork } from './network-model';
+import type { BondingResults, CaseHandCheck, CaseResult, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
 import { worstValues } from './worst-values';
+import { crossSectionImpedance, crossSectionKey } from './impedances';
 
 const PROFILE_STEPS = 6;
 
@@ -20,9 +21,13 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     if (!compiled.has(conducting)) compiled.set(conducting, compileOrExplain(model, conducting));
     return compiled.get(conducting)!;
   };
+  // Each distinct cross-section's impedance matrix, once: the hand-check figures of every case use them.
+  const crossSections = distinctCrossSections(model).map((x) => ({ ...x, ...crossSectionImpedance(study, x.seg) }));
   const cases = study.cases.map((c) => {
-    const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), caseSources(study, model, c), c);
-    return caseResult(study, model, c, solution);
+    const sources = caseSources(study, model, c);
+    const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), sources, caseSegmentSources(study, model, c, sources), c);
+    const result = caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0);
+    return { ...result, handCheck: handCheck(model, crossSections, sources, result.sheathCurrents.map((s) => s.maxA)) };
   });
   return {
     kind: 'bonding',
@@ -31,12 +36,51 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     cases,
     worst: worstValues(cases),
     crossChecks: bondingCrossChecks(study, model, cases),
+    impedanceMatrices: crossSections.map(({ seg, sectionIds, z, labels }) => ({
+      crossSection: crossSectionName(seg),
+      layoutId: seg.layout.id,
+      phaseRotation: seg.phaseRotation,
+      sectionIds: [...sectionIds],
+      conductors: labels,
+      impedanceOhmPerKm: z.map((row) => row.map((v): [number, number] => [v.re * 1000, v.im * 1000])),
+    })),
   };
+}
+
+/** Names a cross-section for the hand-check tables: layout, transposition, ECC positions. */
+const crossSectionName = (seg: BondingNetworkModel['topology']['segments'][number]) =>
+  `layout ${seg.layout.id}${seg.phaseRotation ? `, cables shifted ${seg.phaseRotation}` : ''}${seg.eccIds.length ? `, ECC ${seg.eccIds.map((e) => (seg.mirroredEccIds.has(e) ? `${e} mirrored` : e)).join(', ')}` : ''}`;
+
+function distinctCrossSections(model: BondingNetworkModel) {
+  const byKey = new Map<string, { seg: BondingNetworkModel['topology']['segments'][number]; sectionIds: Set<string> }>();
+  for (const seg of model.topology.segments) {
+    const key = crossSectionKey(seg);
+    if (!byKey.has(key)) byKey.set(key, { seg, sectionIds: new Set() });
+    byKey.get(key)!.sectionIds.add(seg.sectionId);
+  }
+  return [...byKey.values()];
+}
+
+type CrossSectionData = ReturnType<typeof distinctCrossSections>[number] & ReturnType<typeof crossSectionImpedance>;
+
+function handCheck(model: BondingNetworkModel, crossSections: CrossSectionData[], sources: Complex[], sheathMaxA: number[]): CaseHandCheck {
+  const cores = sources.slice(0, model.cables.length);
+  const referenceCurrentA = Math.max(0, ...cores.map(abs));
+  if (referenceCurrentA === 0) return { referenceCurrentA, emfVPerKmPerKA: [], sheathCurrentAPerKA: [] };
+  const perKA = 1000 / referenceCurrentA;
+  const emfVPerKmPerKA = crossSections.flatMap(({ seg, z, metallicCount }) => {
+    return model.cables.map((cable, i) => {
+      let e: Complex = { re: 0, im: 0 };
+      cores.forEach((current, j) => (e = { re: e.re + z[i][metallicCount + j].re * current.re - z[i][metallicCount + j].im * current.im, im: e.im + z[i][metallicCount + j].re * current.im + z[i][metallicCount + j].im * current.re }));
+      return { crossSection: crossSectionName(seg), cable: cable.label, value: abs(e) * 1000 * perKA };
+    });
+  });
+  return { referenceCurrentA, emfVPerKmPerKA, sheathCurrentAPerKA: model.cables.map((cable, k) => ({ cable: cable.label, value: sheathMaxA[k] * perKA })) };
 }
 
 function compileOrExplain(model: BondingNetworkModel, conducting: boolean): CompiledNetwork {
   try {
-    return model.builder.compile(new Set(conducting ? [SVL_TAG] : []));
+    return model.builder.compile(new Set([conducting ? SVL_TAG : SVL_OFF_TAG]));
   } catch (err) {
     if (err instanceof FloatingNodesError) {
       throw new CalculationError(`The bonding leaves sheaths or ECCs with no path to earth: ${err.labels.slice(0, 3).join('; ')}. Earth each sheath at least once.`, ['bonding']);
@@ -48,9 +92,9 @@ function compileOrExplain(model: BondingNetworkModel, conducting: boolean): Comp
   }
 }
 
-function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof caseSources>, c: StudyCase): NetworkSolution {
+function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof caseSources>, segmentSources: SegmentSources | undefined, c: StudyCase): NetworkSolution {
   try {
-    return network.solve(sources);
+    return network.solve(sources, segmentSources);
   } catch (err) {
     if (err instanceof IllConditionedError) {
       throw new CalculationError(`Case "${c.id}" gives no finite solution: check its currents for extreme values.`, ['cases']);
@@ -59,7 +103,7 @@ function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof cas
   }
 }
 
-function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution): CaseResult {
+function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean): Omit<CaseResult, 'handCheck'> {
   const { topology, builder, cables, jointNodes } = model;
   const last = topology.joints.length - 1;
 
@@ -73,6 +117,8 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         : joint.join === 'cross' ? 'cross-bonding-link-box'
           : midEarth ? 'mid-point-earthing'
             : (joint.earthLeft && joint.earthRight) ? 'earthed-link-box' : 'open-end';
+    const earthV = nodes.earthBar === undefined ? undefined : solution.voltage(nodes.earthBar);
+    const toLocal = (v: Complex) => (earthV === undefined ? null : sub(v, earthV));
     const seen = new Set<number>();
     const sheathEnds: PointResult['sheathEnds'] = [];
     (['arriving', 'leaving'] as const).forEach((side) => {
@@ -81,7 +127,15 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         if (seen.has(rep)) return;
         seen.add(rep);
         const v = solution.voltage(node);
-        sheathEnds.push({ cable: cables[k].label, side, voltageV: abs(v), angleDeg: argDeg(v) });
+        const local = toLocal(v);
+        sheathEnds.push({
+          cable: cables[k].label,
+          side,
+          voltageV: abs(v),
+          angleDeg: argDeg(v),
+          toLocalEarthV: local && abs(local),
+          toLocalEarthAngleDeg: local && argDeg(local),
+        });
       });
     });
     const acrossJoint =
@@ -93,6 +147,16 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
           )
         : [];
     const at = joint.userJointIndex === undefined ? `${joint.chainageM.toFixed(0)} m` : `joint ${joint.userJointIndex} (${joint.chainageM.toFixed(0)} m)`;
+    const localEarth: LocalEarth | null =
+      earthV === undefined
+        ? null
+        : {
+            kind: nodes.earthKind!,
+            resistanceOhm: nodes.earthOhm ?? null,
+            voltageV: abs(earthV),
+            angleDeg: argDeg(earthV),
+            electrodeCurrentA: nodes.earthOhm === undefined ? 0 : abs(earthV) / nodes.earthOhm,
+          };
     points.push({
       jointIndex: joint.userJointIndex ?? null,
       chainageM: joint.chainageM,
@@ -100,20 +164,33 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
       label: `${at}, ${kind.replace(/-/g, ' ')}`,
       sheathEnds,
       acrossJoint,
-      earthBarV: nodes.earthBar === undefined ? undefined : abs(solution.voltage(nodes.earthBar)),
-      eccV: [...nodes.ecc].map(([eccId, node]) => ({ eccId, voltageV: abs(solution.voltage(node)) })),
+      earthBarV: earthV === undefined ? undefined : abs(earthV),
+      localEarth,
+      eccV: [...nodes.ecc].map(([eccId, node]) => {
+        const v = solution.voltage(node);
+        const local = toLocal(v);
+        return { eccId, voltageV: abs(v), toLocalEarthV: local && abs(local) };
+      }),
       maxV: Math.max(0, ...sheathEnds.map((e) => e.voltageV)),
+      maxToLocalEarthV: earthV === undefined ? null : Math.max(0, ...sheathEnds.map((e) => e.toLocalEarthV ?? 0)),
     });
   });
 
-  const svls = model.svls.map((s) => {
+  const svls = model.svls.map((s): SvlResult => {
     const spec = study.svls[s.svlIndex];
+    const across = sub(solution.voltage(s.a), solution.voltage(s.b));
+    const current = conducting ? mul(across, s.admittanceS) : { re: 0, im: 0 };
     return {
       svlIndex: s.svlIndex,
       jointIndex: spec.jointIndex,
       cable: cables[s.cable].label,
       connection: spec.connection,
-      voltageV: abs(sub(solution.voltage(s.a), solution.voltage(s.b))),
+      terminals: spec.connection === 'across-joint' ? 'across the joint (sheath to sheath)' : `sheath to ${model.jointNodes[s.joint].earthKind === 'station-grid' ? 'station earth' : 'link-box earth'}`,
+      voltageV: abs(across),
+      angleDeg: argDeg(across),
+      conducting,
+      currentA: abs(current),
+      currentAngleDeg: argDeg(current),
       continuousRatingV: spec.continuousRatingV,
       tovRatingV: spec.tovRatingV,
     };
@@ -158,6 +235,11 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
     sheathCurrents,
     eccCurrents,
     lossFactors,
+    bondingLeadCurrents: topology.joints.flatMap((joint) =>
+      joint.join === 'cross' && joint.userJointIndex !== undefined
+        ? [{ jointIndex: joint.userJointIndex, maxA: Math.max(...cables.map((_, k) => abs(segmentCurrents[joint.index - 1][k]))) }]
+        : [],
+    ),
     profile: routeProfile(model, solution),
   };
 }

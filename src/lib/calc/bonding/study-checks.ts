@@ -1,6 +1,20 @@
 import type { BondingStudy } from '../../schemas/bonding-study.schema';
 import { cablePositions } from './cross-section';
 import { buildRouteTopology, svlPlacement } from './route-topology';
+import { hasLocalEarth } from './network-model';
+import { earthReturnDepthM } from '../earth-return';
+
+/**
+ * Carson's simplified formulae hold while the earth-return depth De is much larger than the
+ * spacing D. The first term they drop (Carson 1926, series for P and Q) is k/(3√2) with
+ * k ≈ 1.85·D/De: at D/De = 0.1 it moves the reactance by about 4 %. Cable spacings are far
+ * below this in any real soil, so a ratio under ten means a wrong resistivity or wrong units.
+ */
+export const MIN_DEPTH_TO_SPACING = 10;
+/** Mirrors STUDY_LIMITS.conductors and maxRouteLengthM of the schema (the core cannot import zod modules). */
+const MAX_CONDUCTORS = 40;
+const MAX_ROUTE_M = 1_000_000;
+const MAX_SECTION_CASES = 20_000;
 
 export interface InputIssue {
   path: (string | number)[];
@@ -41,6 +55,14 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
     if (to === undefined) report(['eccs', i, 'toSectionId'], `No section "${e.toSectionId}".`);
     if (from !== undefined && to !== undefined && from > to) report(['eccs', i, 'toSectionId'], 'The ECC must end at or after the section where it starts.');
   });
+  if (study.circuits.length * 3 + study.eccs.length > MAX_CONDUCTORS) {
+    report(['eccs'], `At most ${MAX_CONDUCTORS} sheaths and ECCs in one cross-section; this study has ${study.circuits.length * 3 + study.eccs.length} (three sheaths per circuit). Split the study.`);
+  }
+  if (study.sections.length * study.cases.length > MAX_SECTION_CASES) {
+    report(['cases'], `${study.cases.length} cases on ${study.sections.length} sections is more than the ${MAX_SECTION_CASES} section-cases one calculation returns (each case gives figures for every section): split the cases over studies.`);
+  }
+  const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
+  if (routeM > MAX_ROUTE_M) report(['sections'], `The route is ${(routeM / 1000).toFixed(0)} km long, longer than any cable route (${MAX_ROUTE_M / 1000} km at most): check the units (metres).`);
   checkLayouts(study, report, circuits, cableTypes);
   checkBondingCoverage(study, report, sections);
   checkCases(study, report, circuits);
@@ -73,8 +95,25 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
       report(['svls', i, 'jointIndex'], `Joint ${svl.jointIndex} has no sectionalising insulation for an SVL across the joint.`);
     }
   });
+  const last = topology.joints.length - 1;
+  const overridden = new Set<number>();
   study.earthing.overrides.forEach((o, i) => {
-    if (o.jointIndex > study.sections.length) report(['earthing', 'overrides', i, 'jointIndex'], `Joint ${o.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+    const path = ['earthing', 'overrides', i, 'jointIndex'];
+    const joint = byUserJoint.get(o.jointIndex);
+    if (!joint) return report(path, `Joint ${o.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+    if (overridden.has(o.jointIndex)) return report(path, `Joint ${o.jointIndex} has two earthing overrides; keep one.`);
+    overridden.add(o.jointIndex);
+    if (!hasLocalEarth(topology, joint, joint.index === 0 || joint.index === last)) {
+      return report(path, `Joint ${o.jointIndex} is a straight-through joint with no link box, so an electrode there connects to nothing: remove the override or change the bonding.`);
+    }
+    if (o.noElectrode) {
+      const eccEnd = [...topology.eccSpans.values()].some((s) => s.fromJoint === joint.index || s.toJoint === joint.index);
+      if (joint.join !== 'cross' || joint.earthLeft || joint.earthRight) {
+        report(['earthing', 'overrides', i, 'noElectrode'], `Joint ${o.jointIndex} is not a cross-bonding link box: only a cross-bonding box can be installed without an electrode, since sheaths or ECCs are earthed here.`);
+      } else if (eccEnd) {
+        report(['earthing', 'overrides', i, 'noElectrode'], `Joint ${o.jointIndex}: an ECC ends here and must be bonded to an electrode.`);
+      }
+    }
   });
   return issues;
 }
@@ -117,6 +156,15 @@ function checkLayouts(study: BondingStudy, report: Report, circuits: Map<string,
       const hit = cables.find((c) => Math.hypot(c.xM - e.xM, c.depthM - e.depthM) < c.radiusM);
       if (hit) report(['layouts', li, 'eccs', ei], `The ECC lies inside cable ${hit.label}. Move it clear of the cables.`);
     });
+    const points = [...cables, ...layout.eccs.map((e) => ({ xM: e.xM, depthM: e.depthM }))];
+    let widestM = 0;
+    for (let a = 0; a < points.length; a++) {
+      for (let b = a + 1; b < points.length; b++) widestM = Math.max(widestM, Math.hypot(points[a].xM - points[b].xM, points[a].depthM - points[b].depthM));
+    }
+    const depthM = earthReturnDepthM(study.soilResistivityOhmM, study.frequencyHz);
+    if (depthM < MIN_DEPTH_TO_SPACING * widestM) {
+      report(['soilResistivityOhmM'], `At ${study.soilResistivityOhmM} Ω·m the equivalent earth-return depth is ${depthM.toFixed(1)} m, not much larger than the ${widestM.toFixed(2)} m between conductors in layout "${layout.id}" (Carson's simplified formulae need at least ${MIN_DEPTH_TO_SPACING}×). Check the resistivity and its units (Ω·m).`);
+    }
   });
 }
 
@@ -148,14 +196,35 @@ function checkCases(study: BondingStudy, report: Report, circuits: Map<string, u
       if (seen.has(cur.circuitId)) report(['cases', i, 'currents', k, 'circuitId'], `Circuit "${cur.circuitId}" has two currents in this case.`);
       seen.add(cur.circuitId);
     });
-    const isFault = c.kind === 'three-phase-fault' || c.kind === 'earth-fault';
-    if (isFault && c.durationS === undefined) report(['cases', i, 'durationS'], 'A fault case needs its duration, including back-up clearance.');
-    if (c.kind === 'earth-fault') {
-      if (!c.earthFault) report(['cases', i, 'earthFault'], 'An earth-fault case needs the faulted circuit, phase and current.');
-      else if (!circuits.has(c.earthFault.circuitId)) report(['cases', i, 'earthFault', 'circuitId'], `No circuit "${c.earthFault.circuitId}": the fault must be on a circuit of this study.`);
-    } else {
-      if (c.earthFault) report(['cases', i, 'earthFault'], `Only an earth-fault case has an earth fault; this case is "${c.kind}".`);
-      if (!c.currents.some((cur) => cur.currentA > 0)) report(['cases', i, 'currents'], 'Give a current above zero for at least one circuit.');
+    const isFault = c.kind !== 'normal' && c.kind !== 'emergency';
+    const at = (...rest: (string | number)[]) => ['cases', i, ...rest];
+    if (isFault && c.durationS === undefined) report(at('durationS'), 'A fault case needs its duration, including back-up clearance.');
+    const needs = { 'earth-fault': 'earthFault', 'phase-phase-earth-fault': 'phasePhaseEarthFault', 'internal-fault': 'internalFault' } as const;
+    for (const [kind, key] of Object.entries(needs) as Array<[keyof typeof needs, (typeof needs)[keyof typeof needs]]>) {
+      if (c.kind === kind && !c[key]) report(at(key), `A case of kind "${kind}" needs ${key === 'internalFault' ? 'the faulted circuit, phase, place and infeeds' : 'the faulted circuit, phase and current'}.`);
+      if (c.kind !== kind && c[key]) report(at(key), `Only a case of kind "${kind}" has "${key}"; this case is "${c.kind}".`);
+      const f = c[key];
+      if (c.kind === kind && f && !circuits.has(f.circuitId)) report(at(key, 'circuitId'), `No circuit "${f.circuitId}": the fault must be on a circuit of this study.`);
+    }
+    if (c.kind === 'phase-phase-earth-fault' && c.phasePhaseEarthFault && c.phasePhaseEarthFault.phases[0] === c.phasePhaseEarthFault.phases[1]) {
+      report(at('phasePhaseEarthFault', 'phases'), 'Name two different phases.');
+    }
+    if (c.kind === 'internal-fault' && c.internalFault) {
+      const f = c.internalFault;
+      if (study.sections.length * study.cases.length > MAX_SECTION_CASES) {
+    report(['cases'], `${study.cases.length} cases on ${study.sections.length} sections is more than the ${MAX_SECTION_CASES} section-cases one calculation returns (each case gives figures for every section): split the cases over studies.`);
+  }
+  const routeM = study.sections.reduce((sum, x) => sum + x.lengthM, 0);
+      if ((f.jointIndex === undefined) === (f.chainageM === undefined)) report(at('internalFault', 'jointIndex'), 'Place the fault either at a joint or at a chainage, not both and not neither.');
+      else if (f.jointIndex !== undefined && f.jointIndex > study.sections.length) report(at('internalFault', 'jointIndex'), `Joint ${f.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+      else if (f.chainageM !== undefined && f.chainageM >= routeM) report(at('internalFault', 'chainageM'), `The fault at ${f.chainageM} m lies beyond the route end (${routeM} m).`);
+      if (f.fromStart.currentA === 0 && f.fromEnd.currentA === 0) report(at('internalFault', 'fromStart'), 'Give the infeed from the start, the end or both.');
+    }
+    if (c.kind === 'station-gpr' && !c.stationGpr.length) report(at('stationGpr'), 'A station-rise case needs the rise at one station or both.');
+    if (!isFault && c.stationGpr.length) report(at('stationGpr'), 'A station earth rise belongs to a fault case, not a load case.');
+    if (new Set(c.stationGpr.map((g) => g.station)).size !== c.stationGpr.length) report(at('stationGpr'), 'Give each station once.');
+    if (c.kind === 'normal' || c.kind === 'emergency' || c.kind === 'three-phase-fault') {
+      if (!c.currents.some((cur) => cur.currentA > 0)) report(at('currents'), 'Give a current above zero for at least one circuit.');
     }
   });
 }
