@@ -210,7 +210,7 @@ migrate_and_seed() {
 }
 
 start_server() {
-  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/dist/server/entry.mjs" &
+  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/scripts/serve.mjs" &
   SERVER_PID=$!
   STARTED_PIDS+=("$SERVER_PID")
   wait_for_url "http://127.0.0.1:$SHEATHWISE_PORT/signin" 60 || { log "server did not answer"; return 1; }

@@ -73,7 +73,7 @@ describe('the database goes away and comes back', () => {
     const { projectId } = await demoIds(sessions.designer);
     pgCtl('stop');
     const port = Number(new URL(testEnv().appUrl).port) + 7;
-    second = spawn(process.execPath, ['dist/server/entry.mjs'], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port) }, stdio: 'ignore' });
+    second = spawn(process.execPath, ['scripts/serve.mjs'], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port) }, stdio: 'ignore' });
     const base = `http://127.0.0.1:${port}`;
     const other = sessions.designer.at(base);
     expect(await recoveryTime(async () => (await fetch(`${base}/api/health`)).status > 0, 30)).toBeLessThan(30_000);

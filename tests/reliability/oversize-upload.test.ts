@@ -10,6 +10,8 @@ const MIB = 1024 * 1024;
 function serverRss(): number {
   const pid = process.env.TEST_SERVER_PID;
   if (!pid) throw new Error('TEST_SERVER_PID is not set: run the suite with npm test.');
+  // The pid must be the server itself, not a shell that started it.
+  if (!readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('serve.mjs')) throw new Error(`process ${pid} is not the server`);
   const kb = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1];
   return Number(kb) * 1024;
 }
