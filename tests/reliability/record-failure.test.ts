@@ -1,3 +1,4 @@
+import { spawn, type ChildProcess } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { createDatabase } from '../../src/lib/db/client';
@@ -54,4 +55,30 @@ describe('an issued record that cannot be rendered', () => {
       await pool.end();
     }
   });
+
+  it('a record left unrendered by a crash is rendered by the next server to start, once', async () => {
+    const sessions = await demoSessions();
+    const { revisionId } = await readyDraft(sessions.designer);
+    await drive(sessions, revisionId, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass'], ['approver', 'issue']]);
+    const { db, pool } = createDatabase(testEnv().databaseUrl, 2);
+    const port = Number(new URL(testEnv().appUrl).port) + 9;
+    let server: ChildProcess | undefined;
+    try {
+      await until(async () => (await db.select().from(issuedRecords).where(eq(issuedRecords.revisionId, revisionId)))[0], 30);
+      // As if the server had died after the issue committed and before the record was stored.
+      await db.delete(issuedRecords).where(eq(issuedRecords.revisionId, revisionId));
+      server = spawn(process.execPath, ['scripts/serve.mjs'], { env: { ...process.env, HOST: '127.0.0.1', PORT: String(port) }, stdio: 'ignore' });
+      // The workers start with the first request.
+      await until(async () => ((await fetch(`http://127.0.0.1:${port}/api/health`).catch(() => null))?.status === 200 ? true : undefined), 30);
+      const t0 = Date.now();
+      await until(async () => (await db.select().from(issuedRecords).where(eq(issuedRecords.revisionId, revisionId)))[0], 60);
+      console.log(`[figure] unrendered record stored by the restarted server after ${Date.now() - t0} ms`);
+      const events = await db.select().from(auditEvents).where(eq(auditEvents.revisionId, revisionId));
+      expect(events.filter((e) => e.type === 'record.issued').length).toBeGreaterThanOrEqual(1);
+    } finally {
+      server?.kill();
+      await pool.end();
+    }
+  });
 });
+

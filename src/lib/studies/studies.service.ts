@@ -2,7 +2,7 @@ import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
-import { checklistItems, limitSets, remarks, revisions, studies } from '../db/schema';
+import { checklistItems, limitSets, revisions, studies, studySummaries } from '../db/schema';
 import { inTransaction } from '../db/transaction';
 import { withLockedRevision } from '../db/revision-lock';
 import { appendAudit } from '../audit/audit-log';
@@ -147,39 +147,42 @@ export interface StudyListQuery {
   search?: string;
 }
 
-/** A page of a project's studies with their latest revision; sorted and filtered in SQL. */
+/**
+ * A page of a project's studies with their latest revision, sorted and filtered in SQL. It reads
+ * `study_summaries` (kept current by triggers), so the cost does not grow with the number of
+ * revisions, checklist items or remarks; every sort has an index ending in the study id.
+ */
 export async function listStudies(db: Database, projectId: string, q: StudyListQuery) {
-  const latest = db
-    .select({ studyId: revisions.studyId, number: sql<number>`max(${revisions.number})`.as('latest_number') })
-    .from(revisions)
-    .groupBy(revisions.studyId)
-    .as('latest');
   const where = and(
     eq(studies.projectId, projectId),
     q.kind ? eq(studies.kind, q.kind) : undefined,
-    q.state ? eq(revisions.state, q.state) : undefined,
-    q.search ? or(ilike(studies.code, `%${q.search}%`), ilike(studies.title, `%${q.search}%`)) : undefined,
+    q.state ? eq(studySummaries.state, q.state) : undefined,
+    q.search ? or(ilike(studies.code, `%${likeEscaped(q.search)}%`), ilike(studies.title, `%${likeEscaped(q.search)}%`)) : undefined,
   );
-  const sortColumn = q.sort === 'code' ? studies.code : q.sort === 'title' ? studies.title : revisions.updatedAt;
+  const sortColumn = q.sort === 'code' ? studies.code : q.sort === 'title' ? studies.title : studySummaries.updatedAt;
+  const order = q.direction === 'asc' ? asc : desc;
   const base = db
     .select({
       id: studies.id,
       code: studies.code,
       title: studies.title,
       kind: studies.kind,
-      revisionId: revisions.id,
-      revisionNumber: revisions.number,
-      state: revisions.state,
-      updatedAt: revisions.updatedAt,
-      // Smallest margin of the latest revision's computed checks (negative: failing).
-      worstMarginPct: sql<number | null>`(select min(${checklistItems.marginPct}) from ${checklistItems} where ${checklistItems.revisionId} = ${revisions.id} and ${checklistItems.kind} = 'computed')`,
-      openRemarks: sql<number>`(select count(*)::int from ${remarks} where ${remarks.revisionId} = ${revisions.id} and not ${remarks.resolved})`,
+      revisionId: studySummaries.revisionId,
+      revisionNumber: studySummaries.revisionNumber,
+      state: studySummaries.state,
+      updatedAt: studySummaries.updatedAt,
+      worstMarginPct: studySummaries.worstMarginPct,
+      openRemarks: studySummaries.openRemarks,
     })
     .from(studies)
-    .innerJoin(latest, eq(latest.studyId, studies.id))
-    .innerJoin(revisions, and(eq(revisions.studyId, studies.id), eq(revisions.number, latest.number)))
+    .innerJoin(studySummaries, eq(studySummaries.studyId, studies.id))
     .where(where);
-  const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(base.as('page'));
-  const rows = await base.orderBy(q.direction === 'asc' ? asc(sortColumn) : desc(sortColumn), asc(studies.id)).limit(q.pageSize).offset(q.page * q.pageSize);
+  const [[{ total }], rows] = await Promise.all([
+    db.select({ total: sql<number>`count(*)::int` }).from(studies).innerJoin(studySummaries, eq(studySummaries.studyId, studies.id)).where(where),
+    base.orderBy(order(sortColumn), order(studies.id)).limit(q.pageSize).offset(q.page * q.pageSize),
+  ]);
   return { total, page: q.page, pageSize: q.pageSize, rows };
 }
+
+/** A search term with LIKE's own wildcards taken literally. */
+const likeEscaped = (term: string) => term.replace(/[\\%_]/g, (c) => `\\${c}`);

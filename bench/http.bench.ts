@@ -1,0 +1,104 @@
+// npm run bench:http (through scripts/bench-http.sh): request latency of the built server with
+// 10,000 studies in one project, 20 connections at once, on loopback. Figures only; no asserts.
+import { gzipSync } from 'node:zlib';
+import autocannon from 'autocannon';
+import pg from 'pg';
+import { calculateStudy } from '../src/lib/calc';
+import { signedIn } from '../tests/helpers/http-session';
+import { DEMO_PASSWORD } from '../tests/helpers/env';
+import { crossBondedRoute } from './reference-routes';
+
+const base = process.env.APP_URL!;
+const STUDIES = 10_000;
+const CONNECTIONS = 20;
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
+
+const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+
+/** 10,000 studies copied from a calculated demo revision, checklist included, in SQL. */
+async function seedStudies(db: pg.Client) {
+  const t0 = performance.now();
+  const { rows: [template] } = await db.query(`
+    select r.id, s.project_id, s.limit_set_id, r.designer_id from revisions r join studies s on s.id = r.study_id
+    where r.results is not null and s.kind = 'bonding' order by r.created_at limit 1`);
+  await db.query('begin');
+  await db.query(`
+    with made as (
+      insert into studies (project_id, code, title, kind, limit_set_id, created_by)
+      select $1, 'K' || lpad(n::text, 5, '0'), 'Load study ' || n || ' (generated for the benchmark)', 'bonding', $2, $3 from generate_series(1, ${STUDIES}) n
+      returning id
+    )
+    insert into revisions (study_id, number, state, machine_version, inputs, inputs_hash, results, results_inputs_hash, engine_version, limit_set_version_id, designer_id)
+    select made.id, 1, 'draft', t.machine_version, t.inputs, t.inputs_hash, t.results, t.results_inputs_hash, t.engine_version, t.limit_set_version_id, t.designer_id
+    from made, revisions t where t.id = $4`, [template.project_id, template.limit_set_id, template.designer_id, template.id]);
+  // Every checklist column but the ids, whatever the schema holds today.
+  const { rows: cols } = await db.query(`select column_name from information_schema.columns where table_name = 'checklist_items' and column_name not in ('id', 'revision_id') order by ordinal_position`);
+  const list = cols.map((c: { column_name: string }) => `"${c.column_name}"`).join(', ');
+  await db.query(`
+    insert into checklist_items (revision_id, ${list})
+    select r.id, ${cols.map((c: { column_name: string }) => (c.column_name === 'margin_pct' ? 'c.margin_pct * (0.5 + random())' : `c."${c.column_name}"`)).join(', ')}
+    from revisions r join studies s on s.id = r.study_id and s.code like 'K%', checklist_items c where c.revision_id = $1`, [template.id]);
+  await db.query('commit');
+  console.log(`seeded ${STUDIES} studies in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+  return template.project_id as string;
+}
+
+async function load(label: string, cookie: string, requests: autocannon.Request[], method = 'GET') {
+  const times: number[] = [];
+  const statuses = new Map<number, number>();
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon({ url: base, connections: CONNECTIONS, duration: SECONDS, headers: { cookie, origin: base, 'content-type': 'application/json' }, method: method as autocannon.Request['method'], requests }, (err, res) => (err ? reject(err) : resolve(res)));
+    instance.on('response', (_client, status, _bytes, ms) => {
+      times.push(ms);
+      statuses.set(status, (statuses.get(status) ?? 0) + 1);
+    });
+  });
+  times.sort((a, b) => a - b);
+  const codes = [...statuses].map(([s, n]) => `${s}×${n}`).join(' ');
+  console.log(`${label.padEnd(44)} p50 ${percentile(times, 50).toFixed(0).padStart(5)} ms  p95 ${percentile(times, 95).toFixed(0).padStart(5)} ms  p99 ${percentile(times, 99).toFixed(0).padStart(5)} ms  ${result.requests.average.toFixed(0).padStart(5)} req/s  [${codes}]`);
+}
+
+/** First-load JavaScript of a page: every /_astro script it names and their static imports, gzipped. */
+async function pageJsGzip(path: string, cookie: string): Promise<number> {
+  const html = await (await fetch(base + path, { headers: { cookie } })).text();
+  const seen = new Set<string>();
+  const queue = [...html.matchAll(/\/_astro\/[\w.-]+\.js/g)].map((m) => m[0]);
+  let total = 0;
+  while (queue.length) {
+    const file = queue.pop()!;
+    if (seen.has(file)) continue;
+    seen.add(file);
+    const code = await (await fetch(base + file)).text();
+    total += gzipSync(code).length;
+    for (const m of code.matchAll(/(?:^|[;\s])import\s*(?:[\w*{}\s,$]+from\s*)?["']\.\/([\w.-]+\.js)["']/g)) queue.push(`/_astro/${m[1]}`);
+  }
+  return total;
+}
+
+const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
+await db.connect();
+const projectId = await seedStudies(db);
+const { rows: [someRevision] } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code = 'K05000'`);
+await db.end();
+
+const designer = await signedIn('designer@sheathwise.example', DEMO_PASSWORD);
+const cookie = designer.cookieHeader();
+const sorts = ['code', 'title', 'updated'];
+const studyPages = Array.from({ length: 60 }, (_, i) => ({
+  method: 'GET' as const,
+  path: `/api/projects/${projectId}/studies?page=${(i * 37) % 400}&pageSize=25&sort=${sorts[i % 3]}&direction=${i % 2 ? 'asc' : 'desc'}`,
+}));
+console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route, ${STUDIES} studies in the project\n`);
+await load('studies list (any page, any sort)', cookie, studyPages);
+await load('revision detail', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}` }]);
+await load('health', cookie, [{ method: 'GET', path: '/api/health' }]);
+await load('calculate (reference study)', cookie, [{ method: 'POST', path: `/api/revisions/${someRevision.id}/calculate` }]);
+
+console.log('\nfirst-load JavaScript, gzipped:');
+for (const page of ['/signin', '/', `/projects/${projectId}`, `/revisions/${someRevision.id}`, '/audit']) {
+  console.log(`  ${page.padEnd(60)} ${(((await pageJsGzip(page, cookie)) / 1024)).toFixed(0).padStart(5)} kB`);
+}
+
+const large = crossBondedRoute({ circuits: 2, majorSections: 30, withEcc: true });
+const results = JSON.stringify(calculateStudy(large));
+console.log(`\nresults stored per revision, large route (90 minor sections, 2 circuits): ${(results.length / 1024).toFixed(0)} kB JSON, ${(gzipSync(results).length / 1024).toFixed(0)} kB gzipped`);
