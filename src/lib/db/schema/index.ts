@@ -7,3 +7,4 @@ export * from './invitations';
 export * from './records';
 export * from './files';
 export * from './cable-types';
+export * from './document-numbers';
