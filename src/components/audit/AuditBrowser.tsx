@@ -6,18 +6,28 @@ import { auditFacetsQuery, auditQuery, type AuditFilters, type AuditRow } from '
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, formatDate } from '../ui/parts';
 import RecordDownload from '../revision/RecordDownload';
+import { detailWords, eventSentence } from '../../lib/records/event-sentences';
 
 const column = createColumnHelper<AuditRow>();
 const columns = [
   column.accessor('id', { header: 'No.' }),
   column.accessor('at', { header: 'When (UTC)', cell: (c) => formatDate(c.getValue()) }),
   column.accessor('actorName', { header: 'Who', cell: (c) => c.getValue() ?? 'the system' }),
-  column.accessor('type', { header: 'What' }),
+  column.accessor('type', { header: 'What', cell: (c) => eventSentence({ type: c.getValue(), actorName: c.row.original.actorName, revisionNumber: null }).replace(/:.*$/, '.') }),
   column.accessor('revisionId', {
     header: 'Revision',
     cell: (c) => (c.getValue() ? <span className="flex items-center gap-2"><a className="text-copper underline" href={`/revisions/${c.getValue()}`}>open</a>{c.row.original.type === 'record.issued' && <RecordDownload revisionId={c.getValue()!} label="record" />}</span> : '—'),
   }),
-  column.accessor('detail', { header: 'Detail', cell: (c) => <code className="block max-w-md truncate text-xs" title={JSON.stringify(c.getValue())}>{JSON.stringify(c.getValue())}</code> }),
+  // Detail in words; the stored JSON stays one click away for an auditor who needs it.
+  column.accessor('detail', {
+    header: 'Detail',
+    cell: (c) => (
+      <span className="block max-w-md text-xs">
+        {detailWords(c.row.original.type, c.getValue()) || '—'}
+        <details className="text-ink-soft"><summary className="cursor-pointer">as stored</summary><code className="block whitespace-pre-wrap break-all">{JSON.stringify(c.getValue(), null, 1)}</code></details>
+      </span>
+    ),
+  }),
 ];
 
 interface ChainReport {
@@ -59,7 +69,7 @@ function AuditBrowser() {
         <a className="ml-auto text-sm text-copper underline" href={exportHref}>Export these events as CSV</a>
       </div>
       <div className="flex flex-wrap gap-3 text-sm">
-        <label>What<select aria-label="Event type" className={field} onChange={(e) => set('type', e.target.value)}><option value="">any</option>{facets.data?.types.map((t) => <option key={t}>{t}</option>)}</select></label>
+        <label>What<select aria-label="Event type" className={field} onChange={(e) => set('type', e.target.value)}><option value="">any</option>{facets.data?.types.map((t) => <option key={t} value={t}>{eventSentence({ type: t, actorName: 'someone', revisionNumber: null }).replace(/^someone /, '').replace(/[.:].*$/, '')}</option>)}</select></label>
         <label>Who<select aria-label="Person" className={field} onChange={(e) => set('actorId', e.target.value)}><option value="">anyone</option>{facets.data?.people.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}</select></label>
         <label>Revision id<input aria-label="Revision id" className={field} onChange={(e) => set('revisionId', e.target.value.trim())} /></label>
         <label>From<input aria-label="From date" type="date" className={field} onChange={(e) => set('from', e.target.value)} /></label>

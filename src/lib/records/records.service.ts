@@ -1,7 +1,7 @@
 import { and, eq, inArray, isNull } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { Database } from '../db/client';
-import { issuedRecords, recordFailures, revisions } from '../db/schema';
+import { auditEvents, issuedRecords, recordFailures, revisions } from '../db/schema';
 import { inTransaction, type SqlExecutor } from '../db/transaction';
 import type { JobQueue } from '../jobs/job-queue';
 import { appendAudit } from '../audit/audit-log';
@@ -12,7 +12,8 @@ import { withLockedRevision } from '../db/revision-lock';
 import { AppError } from '../errors';
 import { MAIL_QUEUE } from '../mail/mail-delivery';
 import { recordFailedMessage } from '../mail/workflow-messages';
-import { gatherRecordData } from './record-data';
+import { gatherRecordData, recordDocumentNumber } from './record-data';
+import type { ObjectStore } from '../storage/object-store';
 import { renderRecord } from './record-document';
 
 export const RECORD_QUEUE = 'record';
@@ -31,8 +32,8 @@ const ISSUED = ['issued', 'superseded'] as const;
 const isIssued = (state: string) => (ISSUED as readonly string[]).includes(state);
 
 /** A record rendered now from the revision as it stands, marked as a draft unless issued. */
-export async function renderCurrentRecord(db: Database, revisionId: string): Promise<Buffer> {
-  return renderRecord(await gatherRecordData(db, revisionId));
+export async function renderCurrentRecord(db: Database, revisionId: string, store?: ObjectStore | null): Promise<Buffer> {
+  return renderRecord(await gatherRecordData(db, revisionId, store));
 }
 
 /**
@@ -42,14 +43,15 @@ export async function renderCurrentRecord(db: Database, revisionId: string): Pro
  * fail the same way every time, so it is recorded instead, the approvers are told, and the job
  * ends (a person retries it after the cause is fixed).
  */
-export async function storeIssuedRecord(s: Pick<AppServices, 'db' | 'pool'> & Partial<Pick<AppServices, 'jobs' | 'appUrl'>>, revisionId: string): Promise<void> {
-  const { revision, study, project } = await loadRevisionScope(s.db, revisionId);
+export async function storeIssuedRecord(s: Pick<AppServices, 'db' | 'pool'> & Partial<Pick<AppServices, 'jobs' | 'appUrl' | 'store'>>, revisionId: string): Promise<void> {
+  const scope = await loadRevisionScope(s.db, revisionId);
+  const { revision, study, project } = scope;
   if (!isIssued(revision.state)) throw new Error(`revision ${revisionId} is ${revision.state}, not issued`);
   const [stored] = await s.db.select({ sha256: issuedRecords.sha256 }).from(issuedRecords).where(eq(issuedRecords.revisionId, revisionId));
   if (stored) return;
   let document: Buffer;
   try {
-    document = await renderCurrentRecord(s.db, revisionId);
+    document = await renderCurrentRecord(s.db, revisionId, s.store);
   } catch (err) {
     if (databaseAppError(err)?.errorName === 'Unavailable') throw err;
     const error = (err as Error).message?.slice(0, 1000) || String(err);
@@ -70,7 +72,7 @@ export async function storeIssuedRecord(s: Pick<AppServices, 'db' | 'pool'> & Pa
   await inTransaction(s.pool, async (tx) => {
     const inserted = await tx.insert(issuedRecords).values({ revisionId, document, sha256, sizeBytes: document.length }).onConflictDoNothing().returning({ sha256: issuedRecords.sha256 });
     if (inserted.length) {
-      await appendAudit(tx, { actorId: null, type: 'record.issued', projectId: study.projectId, studyId: study.id, revisionId, detail: { sha256, sizeBytes: document.length } });
+      await appendAudit(tx, { actorId: null, type: 'record.issued', projectId: study.projectId, studyId: study.id, revisionId, detail: { documentNumber: await recordDocumentNumber(tx, scope), sha256, sizeBytes: document.length } });
     }
   });
 }
@@ -111,15 +113,20 @@ export type RecordDownload =
   | { kind: 'failed'; error: string };
 
 /** The issued record's stored bytes, a fresh draft, or word that the issued record is still being rendered or failed. */
-export async function recordForDownload(db: Database, revisionId: string): Promise<RecordDownload> {
-  const { revision, study } = await loadRevisionScope(db, revisionId);
-  const fileName = `${study.code}-rev${revision.number}${isIssued(revision.state) ? '' : '-DRAFT'}.docx`;
+export async function recordForDownload(db: Database, revisionId: string, store?: ObjectStore | null): Promise<RecordDownload> {
+  const scope = await loadRevisionScope(db, revisionId);
+  const { revision } = scope;
   if (isIssued(revision.state)) {
     const [stored] = await db.select().from(issuedRecords).where(eq(issuedRecords.revisionId, revisionId));
+    // Named by the number it was issued with (the audit event keeps it), whatever the pattern is now.
+    const [issuedEvent] = stored ? await db.select({ detail: auditEvents.detail }).from(auditEvents).where(and(eq(auditEvents.revisionId, revisionId), eq(auditEvents.type, 'record.issued'))).limit(1) : [];
+    const issuedNumber = (issuedEvent?.detail as { documentNumber?: unknown } | undefined)?.documentNumber;
+    const fileName = `${typeof issuedNumber === 'string' ? issuedNumber : await recordDocumentNumber(db, scope)}.docx`;
     if (stored) return { kind: 'document', document: stored.document, sha256: stored.sha256, draft: false, fileName };
     const [failure] = await db.select().from(recordFailures).where(eq(recordFailures.revisionId, revisionId));
     return failure ? { kind: 'failed', error: failure.error } : { kind: 'rendering' };
   }
-  const document = await renderCurrentRecord(db, revisionId);
-  return { kind: 'document', document, sha256: sha256Hex(document), draft: true, fileName };
+  const document = await renderCurrentRecord(db, revisionId, store);
+  // Named by its document number, so the file and the number on its pages agree.
+  return { kind: 'document', document, sha256: sha256Hex(document), draft: true, fileName: `${await recordDocumentNumber(db, scope)}-DRAFT.docx` };
 }

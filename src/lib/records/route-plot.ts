@@ -43,7 +43,7 @@ export function routePlotSvg(c: CaseResult, limitV: number | null, width: number
   parts.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${height - m.bottom}" y2="${height - m.bottom}" stroke="#16202e"/>`);
   parts.push(`<line x1="${m.left}" x2="${m.left}" y1="${m.top}" y2="${height - m.bottom}" stroke="#16202e"/>`);
   parts.push(`<text x="${(width + m.left) / 2}" y="${height - 16}" font-size="18" text-anchor="middle">distance along the route (m)</text>`);
-  parts.push(`<text x="24" y="${(height - m.bottom) / 2}" font-size="18" text-anchor="middle" transform="rotate(-90 24 ${(height - m.bottom) / 2})">voltage to earth (V)</text>`);
+  parts.push(`<text x="24" y="${(height - m.bottom) / 2}" font-size="18" text-anchor="middle" transform="rotate(-90 24 ${(height - m.bottom) / 2})">voltage to remote earth (V)</text>`);
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" font-family="DejaVu Sans, Liberation Sans, sans-serif" fill="#16202e">${parts.join('')}</svg>`;
 }
 

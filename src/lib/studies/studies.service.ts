@@ -84,7 +84,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
     if (err instanceof CalculationError) throw new AppError('InvalidInput', err.message, [{ field: `inputs.${err.path.join('.') || '(study)'}`, message: err.message }]);
     throw err;
   }
-  const computed = evaluateCompliance(inputs, results, { name: study.title, version: limits.version, limits: limits.limits });
+  const computed = evaluateCompliance(inputs, results, { name: (await s.db.select({ name: limitSets.name }).from(limitSets).where(eq(limitSets.id, study.limitSetId)))[0].name, version: limits.version, limits: limits.limits });
   return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
     assertEditableBy(actor, current);
     if (current.version !== revision.version) throw new AppError('Conflict');

@@ -21,13 +21,20 @@ function recordData(study: ReturnType<typeof crossBondedRoute>, draft: boolean):
     project: { code: 'BENCH', name: 'Reference route (invented)' },
     study: { code: 'L-90', title: 'Large reference route', kind: 'bonding' },
     revision: { number: 1, state: draft ? 'draft' : 'issued', createdAt: new Date('2026-01-05'), issuedAt: draft ? null : new Date('2026-02-01'), engineVersion: results.engineVersion, inputsHash: 'f'.repeat(64) } as RecordData['revision'],
-    limitSet: { name: limits.name, version: 1 },
+    documentNumber: 'BENCH-L-90-R01',
+    designerName: 'Test Designer (invented)',
+    limitSet: { name: limits.name, version: 1, limits: limits.limits },
     inputs: study,
     results,
     checklist,
     remarks: [],
     checkValues: [],
     signOffs: [],
+    history: [{ number: 1, state: draft ? 'draft' : 'issued', createdAt: new Date('2026-01-05'), issuedAt: draft ? null : new Date('2026-02-01'), designer: 'Test Designer (invented)', checker: '', approver: '' }],
+    workflowEvents: [],
+    files: [],
+    commissioning: [],
+    changes: null,
   };
 }
 
@@ -44,7 +51,7 @@ describe('record rendering', () => {
     expect(ms).toBeLessThan(15_000);
 
     const doc = readDocx(bytes);
-    expect(doc.media).toHaveLength(1); // the along-route plot
+    expect(doc.documentXml.match(/<pic:pic\b/g)).toHaveLength(study.cases.length); // the along-route plot of every case, faults included
     const worst = data.results!.kind === 'bonding' ? data.results!.worst.find((w) => w.quantity === 'standing-voltage-normal')! : null;
     expect(hasCell(doc.bodyText, formatQuantity(worst!.value, 'V'))).toBe(true);
     expect(hasCell(doc.bodyText, 'PASS')).toBe(true);
@@ -66,7 +73,40 @@ describe('record rendering', () => {
     await expect(renderRecord(data)).rejects.toThrow();
     const doc = readDocx(await renderRecord(xmlSafe(data)));
     expect(doc.bodyText).toContain('C\uFFFD1\uFFFD');
-    expect(doc.media).toHaveLength(1);
+    // Identical plots share one image part; each case still has its picture.
+    expect(doc.documentXml.match(/<pic:pic\b/g)).toHaveLength(study.cases.length);
+  });
+
+  it('carries the document number (header, core properties), the limit sources and the generated assumptions', async () => {
+    const study = crossBondedRoute({ circuits: 1, majorSections: 1, withEcc: false });
+    const data = recordData(study, false);
+    const bytes = await renderRecord(data);
+    const doc = readDocx(bytes);
+    expect(doc.headerText).toContain('BENCH-L-90-R01');
+    const { strFromU8, unzipSync } = await import('fflate');
+    const core = strFromU8(unzipSync(bytes)['docProps/core.xml']);
+    expect(core).toContain('<dc:creator>Test Designer (invented)</dc:creator>');
+    expect(core).toContain('<cp:lastModifiedBy>Sheathwise</cp:lastModifiedBy>');
+    expect(core).toContain('BENCH-L-90-R01');
+    // Every limit of the set printed with its own source.
+    for (const l of Object.values(limits.limits)) expect(hasCell(doc.bodyText, l!.source)).toBe(true);
+    expect(doc.bodyText).toContain(`Limit set ${limits.name}, version 1`);
+    expect(doc.bodyText).toContain(`homogeneous layer of ${study.soilResistivityOhmM} Ω·m`);
+    expect(doc.bodyText).toContain('voltage to remote earth');
+    // The to-local-earth column and the hand-check figures.
+    expect(hasCell(doc.bodyText, 'highest sheath V to local earth')).toBe(true);
+    expect(hasCell(doc.bodyText, 'EMF (V/km per kA)')).toBe(true);
+  });
+
+  it('prints manual questions without empty columns and each answer once', async () => {
+    const study = crossBondedRoute({ circuits: 1, majorSections: 1, withEcc: false });
+    const data = recordData(study, false);
+    data.checklist = [...data.checklist, { ...data.checklist[0], id: 'm1', kind: 'manual', itemKey: 'manual:drawings', title: 'Route drawings match the inputs?', answer: 'yes', answerReason: null, justification: null, status: 'yes', source: 'common practice', caseId: null, location: null, value: null, limitValue: null, marginPct: null }];
+    const doc = readDocx(await renderRecord(data));
+    const manualStart = doc.bodyText.indexOf('Questions answered by the designer');
+    const manualText = doc.bodyText.slice(manualStart, doc.bodyText.indexOf('Check remarks', manualStart));
+    expect(manualText.split('\u0001').slice(1, 4)).toEqual(['question', 'answer', 'basis']);
+    expect(manualText.split('\u0001').filter((t) => t === 'yes')).toHaveLength(1);
   });
 });
 

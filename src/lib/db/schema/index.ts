@@ -8,3 +8,4 @@ export * from './records';
 export * from './files';
 export * from './cable-types';
 export * from './study-summaries';
+export * from './document-numbers';

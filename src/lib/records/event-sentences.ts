@@ -1,0 +1,86 @@
+// Audit and workflow events told as sentences ("Bram Lindqvist took revision 1 of B10 for
+// checking"), for the history tab, the audit browser and the record. Stored types stay
+// technical; people read these.
+
+export interface EventForWords {
+  type: string;
+  actorName?: string | null;
+  detail?: unknown;
+  /** The study code and revision number the event concerns, where known. */
+  studyCode?: string | null;
+  revisionNumber?: number | null;
+}
+
+const STEP_WORDS: Record<string, string> = {
+  'revision.submit': 'submitted {rev} for checking',
+  'revision.startCheck': 'took {rev} for checking',
+  'revision.pass': 'passed the check of {rev}',
+  'revision.return': 'returned {rev} to the designer',
+  'revision.issue': 'issued {rev}',
+  'revision.withdraw': 'withdrew {rev}',
+  'revision.supersede': '{rev} was superseded',
+  'revision.created': 'started {rev}',
+  'revision.calculated': 'calculated {rev}',
+  'revision.inputs-changed': 'changed the inputs of {rev}',
+  'study.created': 'created study {study}',
+  'checklist.updated': 'answered a checklist item of {rev}',
+  'check-value.added': 'recorded a check value on {rev}',
+  'remark.added': 'added a remark to {rev}',
+  'file.uploaded': 'attached a file to {rev}',
+  'record.issued': 'The issued record of {rev} was stored',
+  'record.failed': 'The issued record of {rev} could not be rendered',
+  'record.retried': 'asked for the record of {rev} to be rendered again',
+  'limit-set.published': 'published a limit-set version',
+  'cable-type.added': 'added a cable type to the catalogue',
+  'membership.added': 'gave someone a role on a project',
+  'membership.removed': 'removed someone\'s role on a project',
+  'user.invited': 'invited someone',
+  'user.joined': 'joined Sheathwise',
+  'user.locked': 'A sign-in was locked after repeated failures',
+  'user.unlocked': 'unlocked a sign-in',
+  'project.document-number-pattern-set': 'set the document-number pattern of a project',
+};
+
+/** Events told without a person ("The issued record … was stored"). */
+const IMPERSONAL = new Set(['revision.supersede', 'record.issued', 'record.failed', 'user.locked']);
+
+/** The event as one sentence, with its reason or most telling detail after a colon. */
+export function eventSentence(e: EventForWords): string {
+  const rev = e.revisionNumber != null ? `revision ${e.revisionNumber}${e.studyCode ? ` of ${e.studyCode}` : ''}` : 'the revision';
+  const template = STEP_WORDS[e.type] ?? `${e.type.replace(/[.-]/g, ' ')}`;
+  const action = template.replace('{rev}', rev).replace('{study}', e.studyCode ?? '');
+  const who = e.actorName ?? 'Sheathwise';
+  const head = IMPERSONAL.has(e.type) ? action.charAt(0).toUpperCase() + action.slice(1) : `${who} ${action}`;
+  const more = detailWords(e.type, (e.detail ?? {}) as Record<string, unknown>);
+  return more ? `${head}: ${more}` : `${head}.`;
+}
+
+/** The part of an event's detail worth reading, in words; never raw JSON. */
+export function detailWords(type: string, d: Record<string, unknown>): string {
+  const str = (v: unknown) => (typeof v === 'string' ? v : typeof v === 'number' ? String(v) : '');
+  if (typeof d.reason === 'string' && d.reason) return `“${d.reason}”`;
+  if (type === 'revision.calculated' && d.verdicts && typeof d.verdicts === 'object') {
+    const v = d.verdicts as { pass?: number; fail?: number; noLimit?: number };
+    return `engine ${str(d.engineVersion)}, limit-set version ${str(d.limitSetVersion)}; ${v.pass ?? 0} pass, ${v.fail ?? 0} fail, ${v.noLimit ?? 0} without a limit.`;
+  }
+  if (type === 'revision.inputs-changed' && Array.isArray(d.changes)) {
+    const changes = d.changes as Array<{ path?: string; before?: unknown; after?: unknown; text?: string }>;
+    const shown = changes.slice(0, 5).map((c) => c.text ?? `${c.path} ${short(c.before)} → ${short(c.after)}`);
+    return `${shown.join('; ')}${changes.length > 5 ? `; and ${changes.length - 5} more` : ''}.`;
+  }
+  if (type === 'record.issued') return `document ${str(d.documentNumber) || '(no number)'}, SHA-256 ${str(d.sha256).slice(0, 16)}…`;
+  if (type === 'record.failed') return str(d.error);
+  if (type === 'record.retried') return `the earlier failure was “${str(d.previousError)}”`;
+  if (type === 'file.uploaded') return [str(d.fileName), str(d.sha256) && `SHA-256 ${str(d.sha256).slice(0, 16)}…`].filter(Boolean).join(', ');
+  if (type === 'project.document-number-pattern-set') return `${str(d.from)} → ${str(d.to)}`;
+  if (type === 'revision.supersede' && d.supersededBy !== undefined) return `by revision ${str(d.supersededBy)}`;
+  if (type === 'study.created') return [str(d.code), str(d.title)].filter(Boolean).join(' ');
+  if (type === 'membership.added' || type === 'membership.removed') return [str(d.name) || str(d.email), str(d.role)].filter(Boolean).join(', as ');
+  if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || str(d.itemKey)?.replace(/^manual:/, '').replace(/-/g, ' '), str(d.answer)].filter(Boolean).join(': ');
+  return '';
+}
+
+const short = (v: unknown) => {
+  const s = typeof v === 'string' ? v : JSON.stringify(v);
+  return s === undefined ? 'none' : s.length > 40 ? `${s.slice(0, 37)}…` : s;
+};
