@@ -48,10 +48,13 @@ const IMPERSONAL = new Set(['revision.supersede', 'record.issued', 'record.faile
 export function eventSentence(e: EventForWords): string {
   const rev = e.revisionNumber != null ? `revision ${e.revisionNumber}${e.studyCode ? ` of ${e.studyCode}` : ''}` : 'the revision';
   const template = STEP_WORDS[e.type] ?? `${e.type.replace(/[.-]/g, ' ')}`;
-  const action = template.replace('{rev}', rev).replace('{study}', e.studyCode ?? '');
+  const detail = (e.detail ?? {}) as Record<string, unknown>;
+  // A study's own creation carries its code in the detail when the caller did not name it.
+  const studyCode = e.studyCode ?? (typeof detail.code === 'string' ? detail.code : '');
+  const action = template.replace('{rev}', rev).replace('{study}', studyCode);
   const who = e.actorName ?? 'Sheathwise';
   const head = IMPERSONAL.has(e.type) ? action.charAt(0).toUpperCase() + action.slice(1) : `${who} ${action}`;
-  const more = detailWords(e.type, (e.detail ?? {}) as Record<string, unknown>);
+  const more = detailWords(e.type, detail);
   return more ? `${head}: ${more}` : `${head}.`;
 }
 
@@ -74,7 +77,8 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   if (type === 'file.uploaded') return [str(d.fileName), str(d.sha256) && `SHA-256 ${str(d.sha256).slice(0, 16)}…`].filter(Boolean).join(', ');
   if (type === 'project.document-number-pattern-set') return `${str(d.from)} → ${str(d.to)}`;
   if (type === 'revision.supersede' && d.supersededBy !== undefined) return `by revision ${str(d.supersededBy)}`;
-  if (type === 'study.created') return [str(d.code), str(d.title)].filter(Boolean).join(' ');
+  // The code is already in the sentence ("created study B10"); the title follows.
+  if (type === 'study.created') return str(d.title);
   if (type === 'membership.added' || type === 'membership.removed') return [str(d.name) || str(d.email), str(d.role)].filter(Boolean).join(', as ');
   if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || str(d.itemKey)?.replace(/^manual:/, '').replace(/-/g, ' '), str(d.answer)].filter(Boolean).join(': ');
   return '';
