@@ -18,6 +18,7 @@ import { revisionDetail } from '../src/lib/db/revisions.repo';
 import { demoManualItems } from './demo-manual-items';
 import { demoCableTypes } from './demo-cable-types';
 import { addCableType } from '../src/lib/admin/cable-types.service';
+import { cableTypeSchema } from '../src/lib/schemas/bonding-study.schema';
 import { storeIssuedRecord } from '../src/lib/records/records.service';
 
 export const DEMO_PASSWORD = 'sheathwise-demo';
@@ -55,7 +56,7 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
   const as = async (role: string) => (await loadSessionUser(db, ids[role]))!;
   const [designer, checker, approver, admin] = await Promise.all(['designer', 'checker', 'approver', 'admin'].map(as));
 
-  for (const type of demoCableTypes) await addCableType(s, admin, type);
+  for (const type of demoCableTypes) await addCableType(s, admin, cableTypeSchema.parse(type));
 
   const [limitSet] = await db.insert(limitSets).values({ name: 'Demo owner limits (fictional owner)' }).returning();
   const demoLimits = JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8'));

@@ -1,5 +1,9 @@
 import { z } from 'zod';
 import { checkBondingStudy } from '../calc/bonding/study-checks';
+import { checkCableConstruction } from '../calc/cable/construction-checks';
+import { DERIVED_ENGINE_FIELDS, deriveCableParameters } from '../calc/cable/derive-cable';
+import { conductorMetals, sheathMetals } from '../calc/cable/materials';
+import { strandings } from '../calc/cable/conductor';
 
 // The input of a bonding study: one schema for the forms, the endpoints, the command line and
 // the stored JSON. Units are in the field names. Cross-field rules (geometry, topology) live
@@ -42,19 +46,112 @@ const id = z.string().trim().min(1, 'Give an identifier.').max(40);
 const positive = (what: string) => z.number({ error: `${what} must be a number.` }).positive(`${what} must be greater than zero.`);
 const nonNegative = (what: string) => z.number({ error: `${what} must be a number.` }).nonnegative(`${what} cannot be negative.`);
 
-export const cableTypeSchema = z.strictObject({
+/** Figures every cable type gives the engine, however it was entered. */
+const cableTypeCommon = {
   id,
   name: z.string().min(1),
-  conductorResistanceOhmPerKm: positive('Conductor a.c. resistance at operating temperature'),
-  conductorGmrMm: positive('Conductor geometric mean radius'),
-  sheathMeanDiameterMm: positive('Sheath mean diameter'),
-  sheathResistanceOhmPerKm: positive('Sheath resistance at operating temperature'),
   oversheathThicknessMm: positive('Oversheath thickness'),
   overallDiameterMm: positive('Overall cable diameter'),
   /** Power-frequency withstand of the oversheath, r.m.s., for the fault duration. */
   oversheathWithstandKv: positive('Oversheath withstand voltage'),
   /** λ1 the cable's current rating assumed (IEC 60287-1-1); the study's λ1 is checked against it. */
   ratingLossFactor: nonNegative('Loss factor assumed in the rating').max(10).optional(),
+};
+
+/** The maker's figures, entered as they are (`entry` absent means direct, as in studies before constructions). */
+export const directCableTypeSchema = z.strictObject({
+  ...cableTypeCommon,
+  entry: z.literal('direct').optional(),
+  conductorResistanceOhmPerKm: positive('Conductor a.c. resistance at operating temperature'),
+  conductorGmrMm: positive('Conductor geometric mean radius'),
+  sheathMeanDiameterMm: positive('Sheath mean diameter'),
+  sheathResistanceOhmPerKm: positive('Sheath resistance at operating temperature'),
+});
+
+const temperatureC = (what: string) =>
+  z.number({ error: `${what} must be a number (°C).` }).min(-40, `${what} below −40 °C is not an operating temperature.`).max(250, `${what} above 250 °C is beyond any cable insulation: check the units (°C).`);
+const wireMetal = z.enum(['copper', 'aluminium'], { error: 'Choose copper or aluminium.' });
+
+/** What a cable is made of; the engine's figures are derived from it (src/lib/calc/cable). */
+export const cableConstructionSchema = z.strictObject({
+  /** Frequency the conductor's a.c. resistance (skin effect) is derived for. */
+  frequencyHz: z.union([z.literal(50), z.literal(60)], { error: 'Frequency must be 50 or 60 Hz.' }).default(50),
+  conductor: z.strictObject({
+    material: z.enum(conductorMetals, { error: 'Conductor material: copper or aluminium.' }),
+    crossSectionMm2: positive('Conductor cross-section').max(4000, 'A conductor above 4,000 mm² is larger than any cable made: check the units (mm²).'),
+    /** Outer diameter of the conductor (maker's data). */
+    diameterMm: positive('Conductor diameter').max(100, 'A conductor diameter above 100 mm is not a cable conductor: check the units (mm).'),
+    stranding: z.enum(strandings, { error: 'Stranding: solid, stranded, compacted or segmental.' }),
+    /** Equal round strands in concentric lay (stranded only). */
+    strandCount: z.number({ error: 'Strand count must be a number.' }).int('Strand count must be a whole number.').optional(),
+    /** Segments of a Milliken conductor (segmental only). */
+    segmentCount: z.number({ error: 'Segment count must be a number.' }).int('Segment count must be a whole number.').optional(),
+    /** d.c. resistance at 20 °C from IEC 60228 or the maker; without it, ρ20/A of the nominal area. */
+    resistance20OhmPerKm: positive('Conductor d.c. resistance at 20 °C').optional(),
+    operatingTemperatureC: temperatureC('Conductor operating temperature'),
+  }),
+  screen: z.discriminatedUnion(
+    'kind',
+    [
+      z.strictObject({
+        kind: z.literal('tubular'),
+        material: z.enum(sheathMetals, { error: 'Choose the sheath metal.' }),
+        meanDiameterMm: positive('Sheath mean diameter').max(300, 'A sheath mean diameter above 300 mm is not a cable: check the units (mm).'),
+        thicknessMm: positive('Sheath thickness').max(20, 'A sheath thicker than 20 mm is not a cable sheath: check the units (mm).'),
+        operatingTemperatureC: temperatureC('Sheath operating temperature'),
+      }),
+      z.strictObject({
+        kind: z.literal('wires'),
+        material: wireMetal,
+        wireCount: z.number({ error: 'Wire count must be a number.' }).int('Wire count must be a whole number.').min(1, 'Give at least one wire.').max(1000, 'At most 1,000 screen wires.'),
+        wireDiameterMm: positive('Screen wire diameter').max(10, 'A screen wire thicker than 10 mm is not a screen wire: check the units (mm).'),
+        diameterUnderWiresMm: positive('Diameter under the screen wires').max(300, 'A diameter above 300 mm is not a cable: check the units (mm).'),
+        /** Lay length of the helically applied wires; without it the wires count as straight. */
+        layLengthMm: positive('Lay length of the screen wires').optional(),
+        /** A longitudinally applied foil or tape over the wires, in parallel with them. */
+        foil: z.strictObject({ material: wireMetal, thicknessMm: positive('Foil thickness').max(2, 'A foil thicker than 2 mm is a sheath: enter it as tubular.') }).optional(),
+        operatingTemperatureC: temperatureC('Screen operating temperature'),
+      }),
+    ],
+    { error: 'Screen kind: "tubular" (a sheath) or "wires" (a wire screen).' },
+  ),
+});
+
+/**
+ * Derived from the construction. Stored studies carry the derived figures too; read back they
+ * must equal the derivation, so a hand-edited figure is refused, never silently replaced.
+ */
+export const constructionCableTypeSchema = z
+  .strictObject({
+    ...cableTypeCommon,
+    entry: z.literal('construction'),
+    construction: cableConstructionSchema,
+    conductorResistanceOhmPerKm: z.number().optional(),
+    conductorGmrMm: z.number().optional(),
+    sheathMeanDiameterMm: z.number().optional(),
+    sheathResistanceOhmPerKm: z.number().optional(),
+  })
+  .check(
+    z.superRefine((t, ctx) => {
+      const issues = checkCableConstruction(t);
+      for (const issue of issues) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+      if (issues.length > 0) return;
+      const derived = deriveCableParameters(t.construction);
+      for (const key of DERIVED_ENGINE_FIELDS) {
+        const given = t[key];
+        if (given !== undefined && !(Math.abs(given - derived[key]) <= 1e-9 * Math.abs(derived[key])))
+          ctx.addIssue({ code: 'custom', path: [key], message: `Derived from the construction as ${derived[key].toPrecision(6)}: change the construction, or enter the cable type as "direct" to give the maker's figure.` });
+      }
+    }, { when: (payload: { issues: unknown[] }) => payload.issues.length === 0 }),
+  )
+  .transform((t) => {
+    const d = deriveCableParameters(t.construction);
+    return { ...t, conductorResistanceOhmPerKm: d.conductorResistanceOhmPerKm, conductorGmrMm: d.conductorGmrMm, sheathMeanDiameterMm: d.sheathMeanDiameterMm, sheathResistanceOhmPerKm: d.sheathResistanceOhmPerKm };
+  });
+
+/** A catalogue or study cable type: the maker's figures ("direct") or a construction they are derived from. */
+export const cableTypeSchema = z.discriminatedUnion('entry', [directCableTypeSchema, constructionCableTypeSchema], {
+  error: 'Entry: "direct" (the maker\'s figures) or "construction".',
 });
 
 export const circuitSchema = z.strictObject({
@@ -295,5 +392,8 @@ export const bondingStudySchema = bondingStudyBaseSchema.check(
 export type BondingStudyInput = z.input<typeof bondingStudySchema>;
 export type BondingStudy = z.output<typeof bondingStudySchema>;
 export type CableType = z.output<typeof cableTypeSchema>;
+export type CableTypeInput = z.input<typeof cableTypeSchema>;
+export type CableConstruction = z.output<typeof cableConstructionSchema>;
+export type ConstructionCableTypeFields = z.output<typeof constructionCableTypeSchema>;
 export type StudyCase = z.output<typeof caseSchema>;
 export type Layout = z.output<typeof layoutSchema>;
