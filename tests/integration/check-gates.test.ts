@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
 import { and, eq, isNull } from 'drizzle-orm';
+import { demoManualItems } from '../../scripts/demo-manual-items';
 import { createDatabase } from '../../src/lib/db/client';
 import { auditEvents, remarks, revisions } from '../../src/lib/db/schema';
 import { testEnv } from '../helpers/env';
@@ -13,6 +15,11 @@ const { db, pool } = createDatabase(testEnv().databaseUrl, 1);
 
 beforeAll(async () => {
   sessions = await demoSessions();
+  // Other files publish versions of the demo limit set with fewer questions: this file needs
+  // the demo's own (the ECC, SVL and cross-bonding questions), so it publishes them again.
+  const { limitSetId } = await demoIds(sessions.designer);
+  const limits = JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')).limits;
+  await json(await send(sessions.admin, 'POST', `/api/admin/limit-sets/${limitSetId}/versions`, { limits, manualItems: demoManualItems, checkTolerancePct: 2 }), 201);
 });
 afterAll(() => pool.end());
 
