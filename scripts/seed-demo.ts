@@ -62,16 +62,22 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
   const demoLimits = JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8'));
   await publishLimitSetVersion(s, admin, limitSet.id, { limits: demoLimits.limits, manualItems: demoManualItems, checkTolerancePct: 2 });
 
+  // The designer answers the questions the study has not answered itself ("not applicable"
+  // where the subject is absent), and says why each failing computed item is submitted.
   const answerAll = async (revisionId: string) => {
     const detail = await revisionDetail(db, revisionId);
-    for (const item of detail.checklist.filter((i) => i.kind === 'manual')) {
-      const na = item.itemKey === 'manual:ecc-transposed';
-      await updateChecklistItem(s, designer, revisionId, item.itemKey, na ? { answer: 'not-applicable', reason: 'No single-point bonded section in this study.' } : { answer: 'yes' });
+    for (const item of detail.checklist.filter((i) => i.kind === 'manual' && !i.answerGenerated)) {
+      await updateChecklistItem(s, designer, revisionId, item.itemKey, { answer: 'yes' });
+    }
+    for (const item of detail.checklist.filter((i) => i.kind === 'computed' && i.status === 'fail')) {
+      await updateChecklistItem(s, designer, revisionId, item.itemKey, { justification: 'Demo: the entry is fenced and the link box locked; the owner accepts the margin (invented for the demo).' });
     }
   };
   const version = async (revisionId: string) => (await revisionDetail(db, revisionId)).revision.version;
+  // Each seeded person signs with their own (demo) password, as the application asks them to.
+  const signing = { clientAddress: 'seed', policy: { maxFailures: 5, lockSeconds: 300, maxFailuresPerAddress: 50 } };
   const step = async (who: typeof designer, revisionId: string, name: Parameters<typeof applyStep>[3]['step'], reason?: string) =>
-    applyStep(s, who, revisionId, { step: name, version: await version(revisionId), reason });
+    applyStep(s, who, revisionId, { step: name, version: await version(revisionId), reason, password: DEMO_PASSWORD }, signing);
   const draftCalculated = async (code: string, title: string, kind: 'bonding' | 'exposure', file: string) => {
     const { revision } = await createStudy(s, designer, project.id, { code, title, kind, limitSetId: limitSet.id, inputs: fixture(file) });
     await calculateRevision(s, designer, revision.id);

@@ -50,7 +50,23 @@ export async function demoIds(s: HttpSession) {
 let counter = 0;
 const uniqueCode = (prefix: string) => `${prefix}${process.pid % 1000}-${Date.now() % 100000}-${counter++}`;
 
-/** A new study, calculated, with every manual item answered by the designer: ready to submit. */
+interface Item { kind: string; itemKey: string; status: string; answerGenerated: boolean }
+
+/**
+ * The designer answers every manual question the study has not answered itself ("yes"), and
+ * justifies every failing computed item: what a revision needs before it can be submitted.
+ */
+export async function prepareForSubmit(designer: HttpSession, revisionId: string) {
+  const detail = await json(await designer.fetch(`/api/revisions/${revisionId}`), 200);
+  for (const item of detail.checklist.filter((i: Item) => i.kind === 'manual' && !i.answerGenerated)) {
+    await json(await send(designer, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(item.itemKey)}`, { answer: 'yes' }), 200);
+  }
+  for (const item of detail.checklist.filter((i: Item) => i.kind === 'computed' && i.status === 'fail')) {
+    await json(await send(designer, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(item.itemKey)}`, { justification: 'Accepted for this test: the failing margin is understood.' }), 200);
+  }
+}
+
+/** A new study, calculated, with every manual item answered and every failure justified by the designer: ready to submit. */
 export async function readyDraft(designer: HttpSession, fixture = 'fernhollow-cross-bonded', prefix = 'T') {
   const { projectId, limitSetId } = await demoIds(designer);
   const created = await json(
@@ -59,10 +75,7 @@ export async function readyDraft(designer: HttpSession, fixture = 'fernhollow-cr
   );
   const revisionId = created.revision.id as string;
   await json(await send(designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200);
-  const detail = await json(await designer.fetch(`/api/revisions/${revisionId}`), 200);
-  for (const item of detail.checklist.filter((i: { kind: string }) => i.kind === 'manual')) {
-    await json(await send(designer, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(item.itemKey)}`, { answer: 'yes' }), 200);
-  }
+  await prepareForSubmit(designer, revisionId);
   return { projectId, studyId: created.study.id as string, revisionId };
 }
 
@@ -70,11 +83,31 @@ export async function currentVersion(s: HttpSession, revisionId: string): Promis
   return (await json(await s.fetch(`/api/revisions/${revisionId}`), 200)).revision.version;
 }
 
+/** The steps that sign, for which the person's password is asked again. */
+export const SIGNING_STEPS = new Set(['submit', 'pass', 'issue']);
+
+/** A step at the current version; submit, pass and issue carry the demo password unless `extra` says otherwise. */
 export async function step(s: HttpSession, revisionId: string, name: string, extra: Record<string, unknown> = {}) {
-  return send(s, 'POST', `/api/revisions/${revisionId}/steps`, { step: name, version: await currentVersion(s, revisionId), ...extra });
+  const password = SIGNING_STEPS.has(name) ? { password: DEMO_PASSWORD } : {};
+  return send(s, 'POST', `/api/revisions/${revisionId}/steps`, { step: name, version: await currentVersion(s, revisionId), ...password, ...extra });
 }
 
-/** Drives a ready draft through the named steps, each expected to succeed. */
+/**
+ * Drives a ready draft through the named steps, each expected to succeed. Before a pass the
+ * checker closes the open remark threads (a return's reason is one), as a checker satisfied
+ * with the answers would; tests of the gates themselves use `step`.
+ */
 export async function drive(sessions: Record<DemoRole, HttpSession>, revisionId: string, steps: Array<[DemoRole, string]>) {
-  for (const [role, name] of steps) await json(await step(sessions[role], revisionId, name, name === 'return' ? { reason: 'Please look again.' } : {}), 200);
+  for (const [role, name] of steps) {
+    if (name === 'pass') await closeOpenThreads(sessions[role], revisionId);
+    await json(await step(sessions[role], revisionId, name, name === 'return' || name === 'withdraw' ? { reason: 'Please look again.' } : {}), 200);
+  }
+}
+
+/** Closes every open remark thread of a revision as the given person. */
+export async function closeOpenThreads(s: HttpSession, revisionId: string) {
+  const { remarks } = await json(await s.fetch(`/api/revisions/${revisionId}`), 200);
+  for (const t of remarks.filter((r: { parentId: string | null; resolved: boolean }) => !r.parentId && !r.resolved)) {
+    await json(await send(s, 'PATCH', `/api/remarks/${t.id}`, { resolved: true }), 200);
+  }
 }

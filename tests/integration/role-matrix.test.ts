@@ -31,6 +31,10 @@ interface Fixture {
   checkedToReturn: string;
   failingItemKey: string;
   remarkId: string;
+  inCheckToAgree: string;
+  agreeCount: number;
+  checkValueId: string;
+  checkValueToDelete: string;
   userId: string;
   fileId: string;
   measurementsId: string;
@@ -60,7 +64,7 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
     allowed: PARTICIPANTS,
     status: 200,
     call: (f, role) =>
-      role === 'designer' ? { method: 'POST', path: `/api/revisions/${f.draftToWithdraw}/steps`, body: { step: 'withdraw', version: -1 } }
+      role === 'designer' ? { method: 'POST', path: `/api/revisions/${f.draftToWithdraw}/steps`, body: { step: 'withdraw', version: -1, reason: 'Matrix: the designer withdraws.' } }
         : role === 'approver' ? { method: 'POST', path: `/api/revisions/${f.checkedToReturn}/steps`, body: { step: 'return', version: -1, reason: 'Standing voltage over the limit.' } }
           : { method: 'POST', path: `/api/revisions/${f.inCheckToReturn}/steps`, body: { step: 'return', version: -1, reason: 'Matrix: checker returns.' } },
   },
@@ -69,7 +73,7 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
     allowed: PARTICIPANTS,
     status: 200,
     call: (f, role) =>
-      role === 'designer' ? { method: 'PUT', path: `/api/revisions/${f.draft}/checklist/manual%3Alink-boxes`, body: { answer: 'not-applicable', reason: 'No link boxes in this part.' } }
+      role === 'designer' ? { method: 'PUT', path: `/api/revisions/${f.draft}/checklist/manual%3Alink-boxes`, body: { answer: 'no', reason: 'Labels to follow.' } }
         : role === 'checker' ? { method: 'PUT', path: `/api/revisions/${f.inCheck}/checklist/manual%3Alink-boxes`, body: { verdict: 'agree' } }
           : { method: 'PUT', path: `/api/revisions/${f.checkedFailing}/checklist/${encodeURIComponent(f.failingItemKey)}`, body: { justification: 'Link boxes here are in locked kiosks; accepted by the owner.' } },
   },
@@ -78,7 +82,13 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   { route: 'POST /api/revisions/[revisionId]/record', allowed: ['approver'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/record` }) },
   { route: 'GET /api/revisions/[revisionId]/remarks', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/remarks` }) },
   { route: 'POST /api/revisions/[revisionId]/remarks', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/remarks`, body: { body: `A remark from the ${role}.` } }) },
-  { route: 'PATCH /api/remarks/[remarkId]', allowed: PARTICIPANTS, status: 200, call: (f) => ({ method: 'PATCH', path: `/api/remarks/${f.remarkId}`, body: { resolved: true } }) },
+  { route: 'GET /api/revisions/[revisionId]/steps', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/steps` }) },
+  { route: 'POST /api/revisions/[revisionId]/checklist', allowed: ['checker'], status: 200, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.inCheckToAgree}/checklist`, body: { verdict: 'agree', count: f.agreeCount } }) },
+  // A thread is closed by whoever raised it or the revision's checker (here both the checker);
+  // the designer and the approver are refused by the service with 403.
+  { route: 'PATCH /api/remarks/[remarkId]', allowed: ['checker'], status: 200, call: (f) => ({ method: 'PATCH', path: `/api/remarks/${f.remarkId}`, body: { resolved: true } }) },
+  { route: 'PUT /api/revisions/[revisionId]/check-values/[checkValueId]', allowed: ['checker'], status: 200, call: (f) => ({ method: 'PUT', path: `/api/revisions/${f.inCheck}/check-values/${f.checkValueId}`, body: { checkerValue: 21.5, explanation: 'Matrix: corrected.' } }) },
+  { route: 'DELETE /api/revisions/[revisionId]/check-values/[checkValueId]', allowed: ['checker'], status: 200, call: (f) => ({ method: 'DELETE', path: `/api/revisions/${f.inCheck}/check-values/${f.checkValueToDelete}` }) },
   { route: 'POST /api/revisions/[revisionId]/check-values', allowed: ['checker'], status: 201, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/check-values`, body: { itemKey: 'standing-voltage-normal:LOAD', checkerValue: 22.0 } }) },
   { route: 'GET /api/revisions/[revisionId]/files', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/files` }) },
   { route: 'POST /api/revisions/[revisionId]/files', allowed: PARTICIPANTS, status: 201, call: (f, role) => ({ method: 'POST', path: `/api/revisions/${f.inCheck}/files`, body: uploadForm('other', `${role}.csv`, 'note\nfrom the matrix\n') }) },
@@ -137,10 +147,15 @@ describe('role × endpoint matrix', () => {
     await drive(sessions, checkedToReturn, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass']]);
     const failing = (await json(await sessions.approver.fetch(`/api/revisions/${checkedFailing}`), 200)).checklist.find((i: { status: string }) => i.status === 'fail');
     const remark = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/remarks`, { body: 'Please state the earthing resistance source.' }), 201);
+    const inCheckToAgree = (await readyDraft(sessions.designer)).revisionId;
+    await drive(sessions, inCheckToAgree, [['designer', 'submit'], ['checker', 'startCheck']]);
+    const agreeCount = (await json(await sessions.checker.fetch(`/api/revisions/${inCheckToAgree}`), 200)).checklist.length;
+    const checkValue = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/check-values`, { itemKey: 'standing-voltage-normal:LOAD', checkerValue: 21 }), 201);
+    const checkValueToDelete = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/check-values`, { itemKey: 'standing-voltage-normal:LOAD', checkerValue: 20 }), 201);
     const me = await json(await sessions.designer.fetch('/api/me'), 200);
     const file = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('data-sheet', 'svl.pdf', '%PDF-1.4\n% matrix\n')), 201);
     const measurements = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('measurements', 'readings.csv', 'joint,cable,measured_v,load_a\n1,C1-a,12.0,500\n')), 201);
-    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
+    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
   });
 
   for (const entry of matrix) {

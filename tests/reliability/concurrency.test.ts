@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { createDatabase } from '../../src/lib/db/client';
 import { auditEvents, remarks } from '../../src/lib/db/schema';
-import { testEnv } from '../helpers/env';
+import { DEMO_PASSWORD, testEnv } from '../helpers/env';
 import { currentVersion, demoSessions, drive, readyDraft, send } from '../helpers/workflow-api';
 import { figure, percentile, timed } from './figures';
 
@@ -45,7 +45,7 @@ describe('50-way concurrency on one revision', () => {
     const version = await currentVersion(sessions.checker, revisionId);
 
     const steps = await Promise.all(
-      Array.from({ length: WAYS }, () => timed(() => send(sessions.checker, 'POST', `/api/revisions/${revisionId}/steps`, { step: 'pass', version }))),
+      Array.from({ length: WAYS }, () => timed(() => send(sessions.checker, 'POST', `/api/revisions/${revisionId}/steps`, { step: 'pass', version, password: DEMO_PASSWORD }))),
     );
     figure('50 concurrent steps: max', Math.max(...steps.map((s) => s.ms)).toFixed(0), 'ms');
     const statuses = steps.map((s) => s.status);

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { and, asc, eq } from 'drizzle-orm';
 import { createDatabase } from '../../src/lib/db/client';
 import { auditEvents, checkValues } from '../../src/lib/db/schema';
-import { testEnv } from '../helpers/env';
+import { DEMO_PASSWORD, testEnv } from '../helpers/env';
 import type { HttpSession } from '../helpers/http-session';
 import { currentVersion, demoSessions, drive, json, readyDraft, send } from '../helpers/workflow-api';
 import { figure } from './figures';
@@ -25,7 +25,8 @@ async function writesAfter(revisionId: string, step: string, types: string[]) {
 /** Fires `writes` and the step at the same moment; returns the step's status and the writes' statuses. */
 async function race(stepper: HttpSession, revisionId: string, step: string, writes: Array<() => Promise<Response>>) {
   const version = await currentVersion(stepper, revisionId);
-  const all = await Promise.all([send(stepper, 'POST', `/api/revisions/${revisionId}/steps`, { step, version }), ...writes.map((w) => w())]);
+  // Submit, pass and issue are signed: the password goes with them.
+  const all = await Promise.all([send(stepper, 'POST', `/api/revisions/${revisionId}/steps`, { step, version, password: DEMO_PASSWORD }), ...writes.map((w) => w())]);
   return { step: all[0].status, writes: all.slice(1).map((r) => r.status) };
 }
 
@@ -36,7 +37,8 @@ describe('writes racing a hand-off never land after it', () => {
     for (let t = 0; t < TRIALS; t++) {
       const { revisionId } = await readyDraft(sessions.designer, 'fernhollow-cross-bonded', 'L');
       const detail = await json(await sessions.designer.fetch(`/api/revisions/${revisionId}`), 200);
-      const manual = detail.checklist.filter((i: { kind: string }) => i.kind === 'manual').map((i: { itemKey: string }) => i.itemKey);
+      // Questions the study answers itself ("not applicable") refuse a person's answer.
+      const manual = detail.checklist.filter((i: { kind: string; answerGenerated: boolean }) => i.kind === 'manual' && !i.answerGenerated).map((i: { itemKey: string }) => i.itemKey);
       const writes = Array.from({ length: WRITES }, (_, i) => () =>
         send(sessions.designer, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(manual[i % manual.length])}`, { answer: 'yes', reason: `late ${i}` }));
       const result = await race(sessions.designer, revisionId, 'submit', writes);
@@ -81,7 +83,7 @@ describe('writes racing a hand-off never land after it', () => {
     expect(lateTotal).toBe(0);
   });
 
-  it('remarks racing issue: none lands in the issued revision', async () => {
+  it('justifications and remarks racing issue: none lands in the issued revision', async () => {
     const sessions = await demoSessions();
     let lateTotal = 0;
     let issued = 0;
@@ -89,12 +91,18 @@ describe('writes racing a hand-off never land after it', () => {
       const { revisionId } = await readyDraft(sessions.designer, 'kestrel-single-point-ecc', 'L');
       await drive(sessions, revisionId, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass']]);
       const detail = await json(await sessions.approver.fetch(`/api/revisions/${revisionId}`), 200);
-      for (const item of detail.checklist.filter((i: { status: string; answer: string | null }) => i.status === 'fail' || i.answer === 'no')) {
+      const failing = detail.checklist.filter((i: { status: string; answer: string | null }) => i.status === 'fail' || i.answer === 'no');
+      expect(failing.length).toBeGreaterThan(0);
+      const justify = (text: string) => send(sessions.approver, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(failing[0].itemKey)}`, { justification: text });
+      for (const item of failing) {
         await json(await send(sessions.approver, 'PUT', `/api/revisions/${revisionId}/checklist/${encodeURIComponent(item.itemKey)}`, { justification: 'Accepted for this test: the margin is understood.' }), 200);
       }
-      const writes = Array.from({ length: WRITES }, (_, i) => () => send(sessions.checker, 'POST', `/api/revisions/${revisionId}/remarks`, { body: `Late remark ${i}` }));
+      // Writes the checked state accepts (the approver's justification, rewritten) and ones it
+      // refuses by then (a checker's new remark): neither may land after the issue.
+      const writes = Array.from({ length: WRITES }, (_, i) => () =>
+        i % 2 ? justify(`Accepted for this test, rewritten ${i}: the margin is understood.`) : send(sessions.checker, 'POST', `/api/revisions/${revisionId}/remarks`, { body: `Late remark ${i}` }));
       const result = await race(sessions.approver, revisionId, 'issue', writes);
-      for (const s of result.writes) expect([201, 409]).toContain(s);
+      for (const s of result.writes) expect([200, 201, 403, 409]).toContain(s);
       const { stepTaken, late } = await writesAfter(revisionId, 'issue', ['remark.added', 'remark.resolved', 'checklist.updated', 'file.uploaded', 'check-value.added']);
       if (stepTaken) issued++;
       lateTotal += late.length;

@@ -6,7 +6,7 @@ import { auditEvents, issuedRecords } from '../../src/lib/db/schema';
 import { testEnv } from '../helpers/env';
 import type { HttpSession } from '../helpers/http-session';
 import { caughtMail, waitForMail } from '../helpers/maildev-client';
-import { type DemoRole, currentVersion, demoSessions, json, readyDraft, send } from '../helpers/workflow-api';
+import { type DemoRole, closeOpenThreads, demoSessions, json, readyDraft, send, step } from '../helpers/workflow-api';
 
 // Two server processes on one database, object store and mail catcher: nothing may live in one
 // process's memory. The whole story alternates between them.
@@ -32,10 +32,11 @@ describe('two servers behind one database', () => {
     const { revisionId } = await readyDraft(one.designer, 'fernhollow-cross-bonded', 'S');
     await json(await two.designer.fetch(`/api/revisions/${revisionId}`), 200);
 
-    const stepOn = async (s: HttpSession, step: string) => json(await send(s, 'POST', `/api/revisions/${revisionId}/steps`, { step, version: await currentVersion(s, revisionId) }), 200);
+    const stepOn = async (s: HttpSession, name: string) => json(await step(s, revisionId, name), 200);
     await stepOn(two.designer, 'submit');
     await stepOn(one.checker, 'startCheck');
     await json(await send(two.checker, 'POST', `/api/revisions/${revisionId}/remarks`, { body: 'Seen from the second server.' }), 201);
+    await closeOpenThreads(one.checker, revisionId);
     await stepOn(two.checker, 'pass');
     await stepOn(one.approver, 'issue');
 

@@ -17,13 +17,17 @@ export const stepSchema = z.object({
   version: z.number().int().positive(),
   reason: z.string().trim().max(4000).optional(),
   statement: z.string().trim().max(1000).optional(),
+  /** Asked again for the steps that sign (submit, pass, issue); never stored. */
+  password: z.string().max(1024, 'A password is at most 1024 characters.').optional(),
 });
 
 export const checklistUpdateSchema = z.union([
   z
     .object({ answer: z.enum(['yes', 'no', 'not-applicable']), reason: z.string().trim().max(2000).optional() })
     .refine((v) => v.answer !== 'not-applicable' || !!v.reason, { path: ['reason'], message: 'Say why the item does not apply.' }),
-  z.object({ verdict: z.enum(['agree', 'query']) }),
+  // A query opens a remark thread on the item, so it needs the question (required by the
+  // service once it knows the person may query: a refused person hears why first).
+  z.object({ verdict: z.enum(['agree', 'query']), remark: z.string().trim().max(4000).optional() }),
   z.object({ justification: z.string().trim().min(10, 'A justification needs at least a sentence.').max(4000) }),
 ]);
 
@@ -34,13 +38,23 @@ export const remarkSchema = z.object({
   parentId: z.uuid().optional(),
 });
 
+/** Closes (resolved) or reopens a remark thread. */
 export const remarkUpdateSchema = z.object({ resolved: z.boolean() });
+
+/** "Agree with every remaining item": the count the checker was shown and confirmed. */
+export const agreeRemainingSchema = z.object({
+  verdict: z.literal('agree', { error: 'Only "agree" can be given to every remaining item.' }),
+  count: z.number({ error: 'Confirm the number of items.' }).int().min(1, 'No item is left to agree with.'),
+});
 
 export const checkValueSchema = z.object({
   itemKey: z.string().min(1, 'Choose the result you checked.'),
   checkerValue: z.number({ error: 'Enter your value as a number.' }).finite(),
   explanation: z.string().trim().max(2000).optional(),
 });
+
+/** A correction of the checker's own check value (the item stays the same). */
+export const checkValueUpdateSchema = checkValueSchema.omit({ itemKey: true });
 
 export const invitationSchema = z.object({
   email: z.email('This is not an e-mail address.').transform((e) => e.toLowerCase()),

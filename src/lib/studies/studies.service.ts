@@ -95,7 +95,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
       .where(eq(revisions.id, revisionId))
       .returning();
     await tx.delete(checklistItems).where(eq(checklistItems.revisionId, revisionId));
-    const rows = checklistRows(revisionId, computed, limits.manualItems, existing);
+    const rows = checklistRows(revisionId, computed, limits.manualItems, existing, inputs);
     if (rows.length) await tx.insert(checklistItems).values(rows);
     await appendAudit(tx, {
       actorId: actor.id,

@@ -1,6 +1,6 @@
-import { eq } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import type { Database } from '../db/client';
-import { checkValues, checklistItems, type Revision, type Study } from '../db/schema';
+import { checkValues, checklistItems, remarks, type Revision, type Study } from '../db/schema';
 import { canonicalJson } from '../canonical-json';
 import { ENGINE_VERSION, calculateStudy } from '../calc';
 import { parseStudyInputs } from '../studies/study-input';
@@ -12,18 +12,23 @@ import type { RevisionFacts } from './revision.machine';
  * `resultsCurrent` comes from `resultsReproduce` (or is true for steps that do not recompute).
  */
 export async function revisionFacts(db: Database, revision: Revision, opts: { resultsCurrent: boolean; reason?: string }): Promise<RevisionFacts> {
-  const [items, values] = await Promise.all([
-    db.select().from(checklistItems).where(eq(checklistItems.revisionId, revision.id)),
-    db.select().from(checkValues).where(eq(checkValues.revisionId, revision.id)),
-  ]);
+  // One after another: a transaction's connection runs one query at a time anyway.
+  const items = await db.select().from(checklistItems).where(eq(checklistItems.revisionId, revision.id));
+  const values = await db.select().from(checkValues).where(eq(checkValues.revisionId, revision.id));
+  const threads = await db.select({ resolved: remarks.resolved }).from(remarks).where(and(eq(remarks.revisionId, revision.id), isNull(remarks.parentId)));
   const computed = items.filter((i) => i.kind === 'computed');
   const manual = items.filter((i) => i.kind === 'manual');
   return {
     resultsCurrent: opts.resultsCurrent,
     computedEvaluated: computed.length > 0 && computed.every((i) => i.status === 'pass' || i.status === 'fail'),
     manualAnswered: manual.every((i) => i.answer !== null),
-    checkValuesSettled: values.every((v) => Math.abs(v.deviationPct) <= v.tolerancePct || !!v.explanation?.trim()),
+    // The current checker's own values: an earlier checker's values stay on record but cannot
+    // be edited by the one who passes, so they must not block the pass.
+    checkValuesSettled: values.filter((v) => v.checkerId === revision.checkerId).every((v) => Math.abs(v.deviationPct) <= v.tolerancePct || !!v.explanation?.trim()),
     failuresJustified: items.every((i) => !(i.status === 'fail' || i.answer === 'no') || !!i.justification?.trim()),
+    failuresUnexplained: computed.filter((i) => i.status === 'fail' && !i.designerJustification?.trim()).length,
+    queriedItems: items.filter((i) => i.checkerVerdict === 'query').length,
+    openRemarkThreads: threads.filter((t) => !t.resolved).length,
     reasonGiven: !!opts.reason?.trim(),
   };
 }

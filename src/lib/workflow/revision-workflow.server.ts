@@ -11,8 +11,10 @@ import { loadRevisionScope, membersWithRole } from '../db/revisions.repo';
 import { workflowMessage, type MessageContext } from '../mail/workflow-messages';
 import { MAIL_QUEUE, type OutgoingMail } from '../mail/mail-delivery';
 import { enqueueRecords } from '../records/records.service';
-import { type UserEvent, type WorkflowRole, refusal, revisionMachine, revisionSnapshot } from './revision.machine';
+import { ASSUME_READY, type UserEvent, type WorkflowRole, refusal, revisionMachine, revisionSnapshot } from './revision.machine';
 import { resultsReproduce, revisionFacts } from './revision-facts';
+import { resultsHash } from './sign-off';
+import { type Reauthentication, reauthenticate } from '../auth/reauthenticate';
 
 export type StepName = 'submit' | 'startCheck' | 'return' | 'pass' | 'issue' | 'withdraw';
 
@@ -23,7 +25,12 @@ export interface StepRequest {
   reason?: string;
   /** The sign-off statement for submit, pass and issue. */
   statement?: string;
+  /** The person's password, asked again for the steps that sign (submit, pass, issue). */
+  password?: string;
 }
+
+/** Where the request came from and the sign-in policy its password check follows. */
+export type SigningContext = Omit<Reauthentication, 'password'>;
 
 const RECOMPUTE: ReadonlySet<StepName> = new Set(['submit', 'pass', 'issue']);
 const SIGN_OFF_ROLE: Partial<Record<StepName, 'designer' | 'checker' | 'approver'>> = { submit: 'designer', pass: 'checker', issue: 'approver' };
@@ -38,11 +45,20 @@ const DEFAULT_STATEMENT: Record<'designer' | 'checker' | 'approver', string> = {
  * holds the revision's row lock, the guards read fresh facts, then the state, sign-off, audit
  * event and e-mails are written. A stale `version` is a conflict.
  */
-export async function applyStep(s: AppServices, actor: SessionUser, revisionId: string, req: StepRequest) {
-  // The cheap refusals first, and the recomputation (CPU-bound) before taking the lock: the
-  // version check under the lock proves that the inputs it used are still the stored ones.
+export async function applyStep(s: AppServices, actor: SessionUser, revisionId: string, req: StepRequest, signing: SigningContext) {
+  // The cheap refusals first, then the password (a bcrypt comparison) and the recomputation
+  // (CPU-bound), all before taking the lock: the version check under the lock proves that the
+  // inputs they used are still the stored ones.
   const before = await loadRevisionScope(s.db, revisionId);
   if (before.revision.version !== req.version) throw new AppError('Conflict');
+  const signRole = SIGN_OFF_ROLE[req.step];
+  if (signRole) {
+    // A step this person may not take at all is refused before the password is asked for.
+    const roles = (actor.projectRoles[before.project.id] ?? []) as WorkflowRole[];
+    const early = refusalText(before.revision.state, before.revision, { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts: ASSUME_READY });
+    if (early && early.kind !== 'StepRefused') throw new AppError(early.kind, early.message);
+    await reauthenticate(s, actor, { ...signing, password: req.password });
+  }
   const resultsCurrent = RECOMPUTE.has(req.step) && acceptsInState(before.revision.state, `revision.${req.step}`) ? resultsReproduce(before.revision, before.study) : true;
 
   return withLockedRevision(s, revisionId, async ({ revision, study, project }, tx, sqlExecutor) => {
@@ -53,7 +69,7 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
     const context = { designerId: revision.designerId, checkerId: revision.checkerId, approverId: revision.approverId };
     const snapshot = revisionSnapshot(revision.state, context);
     if (!snapshot.can(event)) {
-      const reasonText = refusalText(revision.state, context, event);
+      const reasonText = refusalText(revision.state, context, event) ?? { kind: 'Conflict' as const, message: 'The step was refused.' };
       throw new AppError(reasonText.kind, reasonText.message);
     }
     const [next] = transition(revisionMachine, snapshot, event);
@@ -74,12 +90,16 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
       .returning();
     if (!updated) throw new AppError('Conflict');
 
-    const signRole = SIGN_OFF_ROLE[req.step];
-    if (signRole) await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole] });
-    if (req.step === 'return') await tx.insert(remarks).values({ revisionId, authorId: actor.id, body: req.reason!.trim() });
+    // The signature covers the locked row's inputs and results (which the guard has just
+    // proved current): a later change to either makes it void (sign-off.ts).
+    if (signRole) {
+      await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole], inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) });
+    }
+    // The reason for a return opens a remark thread: the designer answers it, a checker closes it.
+    if (req.step === 'return') await tx.insert(remarks).values({ revisionId, authorId: actor.id, kind: 'return', body: req.reason!.trim() });
 
     const scope = { projectId: project.id, studyId: study.id };
-    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}) } });
+    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}), ...(signRole ? { signed: { role: signRole, inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) } } : {}) } });
 
     if (to === 'issued') {
       const replaced = await tx
@@ -112,10 +132,11 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
 
 type StateName = Parameters<typeof refusal>[0];
 
-/** The catalogue error for a refused step: a state that has moved on is a conflict. */
-function refusalText(state: StateName, context: Parameters<typeof refusal>[1], event: UserEvent): { kind: 'Forbidden' | 'StepRefused' | 'Conflict'; message: string } {
-  const why = acceptsInState(state, event.type) ? refusal(state, context, event) : null;
-  if (!why) return { kind: 'Conflict', message: `A revision that is ${state.replace(/_/g, ' ')} cannot take the step "${event.type.slice('revision.'.length)}".` };
+/** The catalogue error for a refused step (a state that has moved on is a conflict), or null when the rules allow it. */
+function refusalText(state: StateName, context: Parameters<typeof refusal>[1], event: UserEvent): { kind: 'Forbidden' | 'StepRefused' | 'Conflict'; message: string } | null {
+  if (!acceptsInState(state, event.type)) return { kind: 'Conflict', message: `A revision that is ${state.replace(/_/g, ' ')} cannot take the step "${event.type.slice('revision.'.length)}".` };
+  const why = refusal(state, context, event);
+  if (!why) return null;
   return { kind: why.rule === 'role' ? 'Forbidden' : 'StepRefused', message: why.message };
 }
 

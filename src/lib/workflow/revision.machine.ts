@@ -4,7 +4,7 @@ import { assign, setup } from 'xstate';
 // `snapshot.can(event)` to enable buttons). Guards are pure: the server gathers the facts they
 // need (results current, checklist complete ...) and passes them in the event.
 
-export const REVISION_MACHINE_VERSION = 1;
+export const REVISION_MACHINE_VERSION = 2;
 
 export const revisionStates = ['draft', 'ready_for_check', 'in_check', 'returned', 'checked', 'issued', 'withdrawn', 'superseded'] as const;
 export type RevisionState = (typeof revisionStates)[number];
@@ -29,9 +29,30 @@ export interface RevisionFacts {
   checkValuesSettled: boolean;
   /** Every failing item is resolved or carries the approver's justification. */
   failuresJustified: boolean;
-  /** The actor gave a reason (for a return). */
+  /** Failing computed items without the designer's justification. */
+  failuresUnexplained: number;
+  /** Checklist items the checker has queried and not yet agreed. */
+  queriedItems: number;
+  /** Remark threads not yet closed. */
+  openRemarkThreads: number;
+  /** The actor gave a reason (for a return or a withdrawal). */
   reasonGiven: boolean;
 }
+
+/** Facts that let every guard through: the islands use them to offer steps (the server has the last word). */
+export const ASSUME_READY: RevisionFacts = {
+  resultsCurrent: true,
+  computedEvaluated: true,
+  manualAnswered: true,
+  checkValuesSettled: true,
+  failuresJustified: true,
+  failuresUnexplained: 0,
+  queriedItems: 0,
+  openRemarkThreads: 0,
+  reasonGiven: true,
+};
+
+const items = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 export interface RevisionContext {
   designerId: string;
@@ -71,6 +92,7 @@ export function refusal(state: RevisionState, context: RevisionContext, event: U
       if (!facts.resultsCurrent) return notReady('The results are not current: calculate again after the last change of inputs.');
       if (!facts.computedEvaluated) return notReady('Some computed checklist items have no verdict yet: calculate again.');
       if (!facts.manualAnswered) return notReady('Answer every manual checklist item (yes, no, or not applicable with a reason) before submitting.');
+      if (facts.failuresUnexplained > 0) return notReady(`${items(facts.failuresUnexplained, 'failing computed item needs', 'failing computed items need')} your justification before submitting: say on each why the result is acceptable, or change the design.`);
       return null;
     case 'revision.startCheck':
       if (!has(event, 'checker')) return role('Checking needs the checker role in this project.');
@@ -81,7 +103,9 @@ export function refusal(state: RevisionState, context: RevisionContext, event: U
       if (!facts.resultsCurrent) return notReady('The results are not current: the server could not reproduce them.');
       if (!facts.computedEvaluated) return notReady('Some computed checklist items have no verdict.');
       if (!facts.manualAnswered) return notReady('Some manual checklist items are not answered.');
-      if (!facts.checkValuesSettled) return notReady('A check value is outside its tolerance without an explanation.');
+      if (!facts.checkValuesSettled) return notReady('A check value is outside its tolerance without an explanation: explain it, correct it or delete it.');
+      if (facts.queriedItems > 0) return notReady(`${items(facts.queriedItems, 'checklist item is', 'checklist items are')} still queried: close each query once answered, or return the revision to the designer.`);
+      if (facts.openRemarkThreads > 0) return notReady(`${items(facts.openRemarkThreads, 'remark thread is', 'remark threads are')} still open: close each once answered, or return the revision to the designer.`);
       return null;
     case 'revision.return':
       if (state === 'in_check' && me !== context.checkerId) return role('Only the checker who took this revision can return it.');
@@ -96,9 +120,11 @@ export function refusal(state: RevisionState, context: RevisionContext, event: U
       if (me === context.designerId || me === context.checkerId) return role('You designed or checked this revision, so you cannot approve it.');
       if (!facts.resultsCurrent) return notReady('The results are not current: the server could not reproduce them.');
       if (!facts.failuresJustified) return notReady('A failing checklist item has neither been resolved nor justified by the approver.');
+      if (facts.openRemarkThreads > 0) return notReady(`${items(facts.openRemarkThreads, 'remark thread is', 'remark threads are')} still open: close each once answered, or return the revision.`);
       return null;
     case 'revision.withdraw':
       if (me !== context.designerId) return role('Only the designer of this revision can withdraw it.');
+      if (!facts.reasonGiven) return notReady('Say why the revision is withdrawn: the reason is kept in its history.');
       return null;
   }
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { transition } from 'xstate';
 import {
+  ASSUME_READY,
   type RevisionContext,
   type RevisionFacts,
   type RevisionState,
@@ -11,7 +12,7 @@ import {
   revisionSnapshot,
 } from '../../../src/lib/workflow/revision.machine';
 
-const ready: RevisionFacts = { resultsCurrent: true, computedEvaluated: true, manualAnswered: true, checkValuesSettled: true, failuresJustified: true, reasonGiven: true };
+const ready: RevisionFacts = ASSUME_READY;
 const people: Record<string, WorkflowRole[]> = {
   dan: ['designer'],
   cho: ['checker'],
@@ -93,6 +94,11 @@ describe('revision lifecycle: every refusal', () => {
     ['anyone changes an issued revision', 'issued', ctx({ checkerId: 'cho', approverId: 'abe' }), ev('revision.withdraw', 'dan'), 'state'],
     ['anyone revives a withdrawn revision', 'withdrawn', ctx(), ev('revision.submit', 'dan'), 'state'],
     ['anyone revives a superseded revision', 'superseded', ctx(), ev('revision.submit', 'dan'), 'state'],
+    ['submit with a failing computed item the designer has not justified', 'draft', ctx(), ev('revision.submit', 'dan', { failuresUnexplained: 1 }), 'precondition'],
+    ['pass with a queried checklist item', 'in_check', ctx({ checkerId: 'cho' }), ev('revision.pass', 'cho', { queriedItems: 1 }), 'precondition'],
+    ['pass with an open remark thread', 'in_check', ctx({ checkerId: 'cho' }), ev('revision.pass', 'cho', { openRemarkThreads: 1 }), 'precondition'],
+    ['issue with an open remark thread', 'checked', ctx({ checkerId: 'cho' }), ev('revision.issue', 'abe', { openRemarkThreads: 2 }), 'precondition'],
+    ['withdraw without a reason', 'draft', ctx(), ev('revision.withdraw', 'dan', { reasonGiven: false }), 'precondition'],
   ];
   for (const [name, state, context, event, kind] of refusals) {
     it(name, () => {
@@ -105,4 +111,13 @@ describe('revision lifecycle: every refusal', () => {
       }
     });
   }
+});
+
+describe('refusal messages of the new gates name how many', () => {
+  it('counts queried items, open threads and unexplained failures in words', () => {
+    expect(refusal('in_check', ctx({ checkerId: 'cho' }), ev('revision.pass', 'cho', { queriedItems: 2 }))?.message).toMatch(/^2 checklist items are still queried/);
+    expect(refusal('in_check', ctx({ checkerId: 'cho' }), ev('revision.pass', 'cho', { openRemarkThreads: 1 }))?.message).toMatch(/^1 remark thread is still open/);
+    expect(refusal('checked', ctx({ checkerId: 'cho' }), ev('revision.issue', 'abe', { openRemarkThreads: 3 }))?.message).toMatch(/^3 remark threads are still open/);
+    expect(refusal('draft', ctx(), ev('revision.submit', 'dan', { failuresUnexplained: 1 }))?.message).toMatch(/^1 failing computed item needs your justification/);
+  });
 });

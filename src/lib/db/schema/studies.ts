@@ -71,9 +71,14 @@ export const checklistItems = pgTable(
     answer: text('answer'),
     answerReason: text('answer_reason'),
     answeredBy: uuid('answered_by').references(() => users.id),
+    /** The study itself answered "not applicable": the question's subject is absent from its inputs. */
+    answerGenerated: boolean('answer_generated').notNull().default(false),
     checkerVerdict: text('checker_verdict'),
     justification: text('justification'),
     justifiedBy: uuid('justified_by').references(() => users.id),
+    /** Why the designer submits a failing computed item (shown to the checker and the approver). */
+    designerJustification: text('designer_justification'),
+    designerJustifiedBy: uuid('designer_justified_by').references(() => users.id),
     sortOrder: integer('sort_order').notNull(),
   },
   (t) => [unique().on(t.revisionId, t.itemKey)],
@@ -87,8 +92,13 @@ export const remarks = pgTable('remarks', {
   /** What the remark is about: a checklist item key or an input field path. */
   itemKey: text('item_key'),
   field: text('field'),
+  /** A thread's first remark: 'remark', 'query' (raised on a checklist item) or 'return' (the reason a revision went back). Replies: 'reply'. */
+  kind: text('kind').notNull().default('remark'),
   body: text('body').notNull(),
+  /** On a thread's first remark: the thread is closed. Always true on a reply, so unresolved rows are exactly the open threads. */
   resolved: boolean('resolved').notNull().default(false),
+  closedBy: uuid('closed_by').references(() => users.id),
+  closedAt: timestamp('closed_at', { withTimezone: true }),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -104,6 +114,7 @@ export const checkValues = pgTable('check_values', {
   tolerancePct: real('tolerance_pct').notNull(),
   explanation: text('explanation'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }),
 });
 
 export const signOffRoleEnum = pgEnum('sign_off_role', ['designer', 'checker', 'approver']);
@@ -114,6 +125,9 @@ export const signOffs = pgTable('sign_offs', {
   userId: uuid('user_id').notNull().references(() => users.id),
   role: signOffRoleEnum('role').notNull(),
   statement: text('statement').notNull(),
+  /** What the signature covers: the revision's inputs hash and the SHA-256 of its canonical results, at signing. Null only on rows signed before this was recorded. */
+  inputsHash: text('inputs_hash'),
+  resultsHash: text('results_hash'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -122,3 +136,4 @@ export type Revision = typeof revisions.$inferSelect;
 export type ChecklistRow = typeof checklistItems.$inferSelect;
 export type Remark = typeof remarks.$inferSelect;
 export type CheckValue = typeof checkValues.$inferSelect;
+export type SignOff = typeof signOffs.$inferSelect;
