@@ -11,6 +11,7 @@ import { compareMeasurements, parseMeasurements, type Comparison } from '../file
 import { documentNumber } from '../admin/document-number';
 import { compareRevisions } from '../compare/compare.service';
 import { xmlSafe } from './xml-safe-text';
+import { signOffStanding } from '../workflow/sign-off';
 
 /** Everything a record shows, gathered from the database (and the object store for commissioning readings). */
 export async function gatherRecordData(db: Database, revisionId: string, store?: ObjectStore | null) {
@@ -60,7 +61,8 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
     checklist: detail.checklist,
     remarks: detail.remarks,
     checkValues: detail.checkValues,
-    signOffs: detail.signOffs as Array<(typeof detail.signOffs)[number] & Record<string, unknown>>,
+    // Each signature with whether it still covers these inputs and results.
+    signOffs: detail.signOffs.map((signed) => ({ ...signed, ...signOffStanding(signed, revision) })),
     history: history.map((h) => ({ number: h.number, state: h.state, createdAt: h.createdAt, issuedAt: h.issuedAt, designer: people.get(h.designerId) ?? '', checker: h.checkerId ? (people.get(h.checkerId) ?? '') : '', approver: h.approverId ? (people.get(h.approverId) ?? '') : '' })),
     workflowEvents: events.map((e) => ({ at: e.at, revision: numberOf.get(e.revisionId!) ?? 0, type: e.type, actor: e.actorId ? (people.get(e.actorId) ?? '') : 'Sheathwise', reason: typeof (e.detail as { reason?: unknown }).reason === 'string' ? ((e.detail as { reason: string }).reason) : null })),
     files: files.map((f) => ({ fileName: f.fileName, kind: f.kind, sizeBytes: f.sizeBytes, sha256: f.sha256, uploadedBy: people.get(f.uploadedBy) ?? '', createdAt: f.createdAt })),

@@ -96,7 +96,8 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
       (['designer', 'checker', 'approver'] as const).map((role) => {
         const s = [...data.signOffs].reverse().find((x) => x.role === role);
         const hashes = s ? [s.inputsHash, s.resultsHash].filter((h): h is string => typeof h === 'string').join(' / ') : '';
-        return [ROLE_WORD[role], s?.name ?? text.notSigned, date(s?.createdAt), s?.statement ?? '—', hashes || '—'];
+        const standing = s && !s.valid ? ` (${s.voidReason})` : '';
+        return [ROLE_WORD[role], s?.name ?? text.notSigned, date(s?.createdAt), s?.statement ?? '—', (hashes || '—') + standing];
       }),
     ),
     heading(text.cautionHeading),
