@@ -3,20 +3,11 @@ import { createHash } from 'node:crypto';
 import { hasCell, readDocx } from '../helpers/docx-text';
 import { demoSessions, drive, json, readyDraft, send, step, uploadForm, currentVersion } from '../helpers/workflow-api';
 import type { HttpSession } from '../helpers/http-session';
+import { downloadRecord } from '../helpers/record-download';
 
 // The record an auditor reads (issue 11 §4) and the comparison of revisions (§3), through the
 // HTTP API, with the text taken from the DOCX itself.
 
-async function download(s: HttpSession, revisionId: string, timeoutMs = 30_000) {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const res = await s.fetch(`/api/revisions/${revisionId}/record`);
-    if (res.status === 200) return { bytes: new Uint8Array(await res.arrayBuffer()), headers: res.headers };
-    expect(res.status).toBe(202);
-    if (Date.now() > until) throw new Error('the issued record was not rendered in time');
-    await new Promise((r) => setTimeout(r, 300));
-  }
-}
 
 const DEFAULT_PATTERN = '{project}-{study}-R{revision:2}';
 
@@ -54,7 +45,7 @@ describe('the issued record and the comparison of revisions', () => {
 
     const detail = await json(await sessions.auditor.fetch(`/api/revisions/${revisionId}`), 200);
     const number = `SW-${detail.project.code}-${detail.study.code}-CAL-001`;
-    const { bytes, headers } = await download(sessions.auditor, revisionId);
+    const { bytes, headers } = await downloadRecord(sessions.auditor, revisionId);
     expect(headers.get('content-disposition')).toContain(`${number}.docx`);
     const audit = await json(await sessions.auditor.fetch(`/api/audit?revisionId=${revisionId}&type=record.issued`), 200);
     expect(audit.events[0].detail.documentNumber).toBe(number);
@@ -102,7 +93,7 @@ describe('the issued record and the comparison of revisions', () => {
     expect(byId.inputChanges).toEqual([expected]);
     await json(await sessions.auditor.fetch(`/api/revisions/${second.id}/compare?against=latest`), 422);
 
-    const draft = readDocx((await download(sessions.designer, second.id)).bytes);
+    const draft = readDocx((await downloadRecord(sessions.designer, second.id)).bytes);
     expect(draft.bodyText).toContain('Changes since revision 1');
     expect(draft.bodyText).toContain(expected);
     expect(draft.headerText).toContain(`SW-${detail.project.code}-${detail.study.code}-CAL-002`);

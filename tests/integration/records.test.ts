@@ -3,24 +3,14 @@ import { createHash } from 'node:crypto';
 import { formatQuantity } from '../../src/lib/format';
 import { hasCell, readDocx } from '../helpers/docx-text';
 import { demoSessions, drive, json, readyDraft } from '../helpers/workflow-api';
-import type { HttpSession } from '../helpers/http-session';
+import { downloadRecord } from '../helpers/record-download';
 
-async function download(s: HttpSession, revisionId: string, timeoutMs = 20_000) {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const res = await s.fetch(`/api/revisions/${revisionId}/record`);
-    if (res.status === 200) return { bytes: new Uint8Array(await res.arrayBuffer()), headers: res.headers };
-    expect(res.status).toBe(202);
-    if (Date.now() > until) throw new Error('the issued record was not rendered in time');
-    await new Promise((r) => setTimeout(r, 300));
-  }
-}
 
 describe('calculation records', () => {
   it('a draft record can be downloaded at any stage and says it is a draft', async () => {
     const sessions = await demoSessions();
     const { revisionId } = await readyDraft(sessions.designer);
-    const { bytes, headers } = await download(sessions.checker, revisionId);
+    const { bytes, headers } = await downloadRecord(sessions.checker, revisionId);
     expect(headers.get('content-type')).toContain('wordprocessingml');
     expect(headers.get('x-record-draft')).toBe('true');
     expect(headers.get('content-disposition')).toContain('-DRAFT.docx');
@@ -31,8 +21,8 @@ describe('calculation records', () => {
     const sessions = await demoSessions();
     const { revisionId } = await readyDraft(sessions.designer);
     await drive(sessions, revisionId, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass'], ['approver', 'issue']]);
-    const first = await download(sessions.auditor, revisionId);
-    const second = await download(sessions.designer, revisionId);
+    const first = await downloadRecord(sessions.auditor, revisionId);
+    const second = await downloadRecord(sessions.designer, revisionId);
     expect(Buffer.from(second.bytes).equals(Buffer.from(first.bytes))).toBe(true);
     const sha = createHash('sha256').update(first.bytes).digest('hex');
     expect(first.headers.get('x-record-sha256')).toBe(sha);

@@ -12,15 +12,19 @@ export function assertId(id: string | undefined, what: string): string {
   return id;
 }
 
-/** A revision with its study and project, or NotFound. */
-export async function loadRevisionScope(db: Database, revisionId: string) {
+/**
+ * A revision with its study and project, or NotFound. With `lock`, the revision row stays locked
+ * until the caller's transaction ends (see `withLockedRevision`).
+ */
+export async function loadRevisionScope(db: Database, revisionId: string, { lock = false } = {}) {
   assertId(revisionId, 'revision');
-  const [row] = await db
+  const query = db
     .select({ revision: revisions, study: studies, project: projects })
     .from(revisions)
     .innerJoin(studies, eq(studies.id, revisions.studyId))
     .innerJoin(projects, eq(projects.id, studies.projectId))
     .where(eq(revisions.id, revisionId));
+  const [row] = await (lock ? query.for('update', { of: revisions }) : query);
   if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
   return row;
 }
