@@ -2,6 +2,8 @@
 // checking"), for the history tab, the audit browser and the record. Stored types stay
 // technical; people read these.
 
+import { formatNumber } from '../format';
+
 export interface EventForWords {
   type: string;
   actorName?: string | null;
@@ -66,10 +68,15 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
     const v = d.verdicts as { pass?: number; fail?: number; noLimit?: number };
     return `engine ${str(d.engineVersion)}, limit-set version ${str(d.limitSetVersion)}; ${v.pass ?? 0} pass, ${v.fail ?? 0} fail, ${v.noLimit ?? 0} without a limit.`;
   }
-  if (type === 'revision.inputs-changed' && Array.isArray(d.changes)) {
-    const changes = d.changes as Array<{ path?: string; before?: unknown; after?: unknown; text?: string }>;
-    const shown = changes.slice(0, 5).map((c) => c.text ?? `${c.path} ${short(c.before)} → ${short(c.after)}`);
-    return `${shown.join('; ')}${changes.length > 5 ? `; and ${changes.length - 5} more` : ''}.`;
+  if (type === 'revision.inputs-changed') {
+    // Events since the sentences were stored carry them; older ones have only path/before/after.
+    const told = Array.isArray(d.sentences)
+      ? (d.sentences as unknown[]).filter((t): t is string => typeof t === 'string')
+      : Array.isArray(d.changes)
+        ? (d.changes as Array<{ path?: string; before?: unknown; after?: unknown; text?: string }>).map((c) => c.text ?? pathChange(c.path, c.before, c.after))
+        : [];
+    if (!told.length) return '';
+    return `${told.slice(0, 5).join('; ')}${told.length > 5 ? `; and ${told.length - 5} more` : ''}.`;
   }
   if (type === 'record.issued') return `document ${str(d.documentNumber) || '(no number)'}, SHA-256 ${str(d.sha256).slice(0, 16)}…`;
   if (type === 'record.failed') return str(d.error);
@@ -84,7 +91,20 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   return '';
 }
 
-const short = (v: unknown) => {
-  const s = typeof v === 'string' ? v : JSON.stringify(v);
-  return s === undefined ? 'none' : s.length > 40 ? `${s.slice(0, 37)}…` : s;
+const isObject = (v: unknown) => typeof v === 'object' && v !== null;
+
+/** An old stored change told by its path; an object is summarised, never printed as JSON. */
+export function pathChange(path: unknown, before: unknown, after: unknown): string {
+  const where = typeof path === 'string' && path ? path : 'the inputs';
+  if (isObject(after) && (before === null || before === undefined)) return `${where} added`;
+  if (isObject(before) && (after === null || after === undefined)) return `${where} removed`;
+  if (isObject(before) || isObject(after)) return `${where} changed`;
+  return `${where} ${scalar(before)} → ${scalar(after)}`;
+}
+
+const scalar = (v: unknown) => {
+  if (v === null || v === undefined) return 'none';
+  if (typeof v === 'number') return formatNumber(v);
+  const s = String(v);
+  return s.length > 40 ? `${s.slice(0, 37)}…` : s;
 };
