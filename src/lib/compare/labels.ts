@@ -22,7 +22,7 @@ export const verdictLabel = (s: string | null | undefined) => (s ? (VERDICT_LABE
 
 /** A checklist item in words: its title and, for a computed item, the case. */
 export const itemLabel = (item: { title: string; caseId?: string | null } | undefined, key: string) =>
-  item ? `${item.title}${item.caseId ? `, case ${item.caseId}` : ''}` : key.replace(/^manual:/, '').replace(/-/g, ' ').replace(/:/, ', case ');
+  item ? `${item.title}${item.caseId ? `, case ${item.caseId}` : ''}` : itemKeyLabel(key);
 
 export const CRITERION_LABEL: Record<string, string> = {
   'standing-voltage-normal': 'Standing voltage to local earth, normal load',

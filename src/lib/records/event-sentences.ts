@@ -3,6 +3,7 @@
 // technical; people read these.
 
 import { formatNumber } from '../format';
+import { itemKeyLabel } from '../compare/labels';
 
 export interface EventForWords {
   type: string;
@@ -87,7 +88,7 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   // The code is already in the sentence ("created study B10"); the title follows.
   if (type === 'study.created') return str(d.title);
   if (type === 'membership.added' || type === 'membership.removed') return [str(d.name) || str(d.email), str(d.role)].filter(Boolean).join(', as ');
-  if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || str(d.itemKey)?.replace(/^manual:/, '').replace(/-/g, ' '), str(d.answer)].filter(Boolean).join(': ');
+  if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || (str(d.itemKey) && itemKeyLabel(str(d.itemKey))), str(d.answer)].filter(Boolean).join(': ');
   return '';
 }
 
