@@ -29,6 +29,11 @@ const STEP_WORDS: Record<string, string> = {
   'checklist.updated': 'answered a checklist item of {rev}',
   'check-value.added': 'recorded a check value on {rev}',
   'remark.added': 'added a remark to {rev}',
+  'remark.resolved': 'closed a remark thread on {rev}',
+  'remark.reopened': 'reopened a remark thread on {rev}',
+  'checklist.agreed-remaining': 'agreed with every remaining checklist item of {rev}',
+  'check-value.changed': 'changed a check value on {rev}',
+  'check-value.deleted': 'deleted a check value from {rev}',
   'file.uploaded': 'attached a file to {rev}',
   'record.issued': 'The issued record of {rev} was stored',
   'record.failed': 'The issued record of {rev} could not be rendered',
@@ -50,7 +55,8 @@ const IMPERSONAL = new Set(['revision.supersede', 'record.issued', 'record.faile
 /** The event as one sentence, with its reason or most telling detail after a colon. */
 export function eventSentence(e: EventForWords): string {
   const rev = e.revisionNumber != null ? `revision ${e.revisionNumber}${e.studyCode ? ` of ${e.studyCode}` : ''}` : 'the revision';
-  const template = STEP_WORDS[e.type] ?? `${e.type.replace(/[.-]/g, ' ')}`;
+  // An unknown type still reads as words ("widget.re-sized" → "recorded widget re sized on …"), never as its key.
+  const template = STEP_WORDS[e.type] ?? `recorded ${e.type.replace(/[.-]/g, ' ')}${e.revisionNumber != null ? ' on {rev}' : ''}`;
   const detail = (e.detail ?? {}) as Record<string, unknown>;
   // A study's own creation carries its code in the detail when the caller did not name it.
   const studyCode = e.studyCode ?? (typeof detail.code === 'string' ? detail.code : '');
@@ -88,6 +94,12 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   // The code is already in the sentence ("created study B10"); the title follows.
   if (type === 'study.created') return str(d.title);
   if (type === 'membership.added' || type === 'membership.removed') return [str(d.name) || str(d.email), str(d.role)].filter(Boolean).join(', as ');
+  if (type === 'checklist.agreed-remaining' && typeof d.count === 'number') return `${d.count} item${d.count === 1 ? '' : 's'}`;
+  if (type === 'check-value.changed' && d.from && d.to) {
+    const [from, to] = [d.from, d.to] as Array<{ checkerValue?: unknown }>;
+    return `${str(d.itemKey) && itemKeyLabel(str(d.itemKey))}: ${typeof from.checkerValue === 'number' ? formatNumber(from.checkerValue) : '—'} → ${typeof to.checkerValue === 'number' ? formatNumber(to.checkerValue) : '—'}`;
+  }
+  if (type === 'check-value.deleted') return str(d.itemKey) && itemKeyLabel(str(d.itemKey));
   if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || (str(d.itemKey) && itemKeyLabel(str(d.itemKey))), str(d.answer)].filter(Boolean).join(': ');
   return '';
 }

@@ -46,6 +46,10 @@ describe('keys in words', () => {
 
   it('tells a workflow step as a sentence with the study code and revision number', () => {
     expect(eventSentence({ type: 'revision.startCheck', actorName: 'Bram Lindqvist', studyCode: 'B10', revisionNumber: 1 })).toBe('Bram Lindqvist took revision 1 of B10 for checking.');
+    expect(eventSentence({ type: 'checklist.agreed-remaining', actorName: 'Bram Lindqvist', studyCode: 'B10', revisionNumber: 1, detail: { count: 12, itemKeys: [] } })).toBe('Bram Lindqvist agreed with every remaining checklist item of revision 1 of B10: 12 items');
+    expect(eventSentence({ type: 'check-value.changed', actorName: 'Bram Lindqvist', revisionNumber: 1, detail: { itemKey: 'svl-tov:F3:0', from: { checkerValue: 101.23456 }, to: { checkerValue: 99 } } })).toMatch(/changed a check value on revision 1: .*case F3, SVL 1: 101\.2 → 99$/);
+    // A type without a sentence of its own still reads as words, never as its dotted key.
+    expect(eventSentence({ type: 'widget.re-sized', actorName: 'Ada', revisionNumber: 2 })).not.toContain('widget.');
   });
 });
 
