@@ -1,7 +1,8 @@
-/** How Sheathwise prints a quantity in summaries and records: 3 significant figures below 100, whole numbers above. */
+/** How Sheathwise prints a quantity in summaries and records: 3 significant figures below 100, whole numbers above (negative values alike). */
 export function formatQuantity(value: number, unit = ''): string {
+  const size = Math.abs(value);
   // Below a nanounit a value is the solver's rounding noise, not a result.
-  const text = value >= 100 ? value.toFixed(0) : value >= 1 ? value.toFixed(2) : Math.abs(value) < 1e-9 ? '0' : value.toPrecision(3);
+  const text = !Number.isFinite(value) ? String(value) : size >= 100 ? value.toFixed(0) : size >= 1 ? value.toFixed(2) : size < 1e-9 ? '0' : value.toPrecision(3);
   return unit ? `${text} ${unit}` : text;
 }
 
@@ -20,3 +21,12 @@ export const formatDifferencePct = (pct: number): string => (Math.abs(pct) < 1e-
 
 /** A date as ISO yyyy-mm-dd. */
 export const formatIsoDate = (d: Date | string | null | undefined): string => (d ? new Date(d).toISOString().slice(0, 10) : '—');
+
+const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+/** A typed yyyy-mm-dd that is a real calendar date (2026-02-30 is not), or null. */
+export function isoDateOrNull(text: string): string | null {
+  if (!ISO_DATE.test(text)) return null;
+  const d = new Date(`${text}T00:00:00Z`);
+  return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === text ? text : null;
+}

@@ -7,7 +7,8 @@ import { DEMO_PASSWORD } from '../helpers/env';
 // submits it (signing with the password); a checker queries an item and returns it with a
 // remark; the designer fixes, answers the query and resubmits; the checker is refused the pass
 // while the threads are open, closes them, agrees with the rest and passes it; the approver
-// issues it; the auditor finds every step and the chain verifies.
+// issues it; the auditor finds every step and the chain verifies; the designer starts revision 2
+// and opens the comparison with the issued revision.
 
 const code = `W${Date.now() % 100000}`;
 let revisionUrl = '';
@@ -238,14 +239,25 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
 
     await page.getByRole('link', { name: 'Audit trail' }).click();
     await hydrated(page);
-    await page.getByLabel('Revision id').fill('not-an-id');
+    await page.getByLabel('Revision number or id').fill('not-an-id');
     await page.getByRole('alert').waitFor();
-    await page.getByLabel('Revision id').fill(revisionUrl.split('/').pop()!);
+    await page.getByLabel('Revision number or id').fill(revisionUrl.split('/').pop()!);
     await page.getByTestId('audit-table').waitFor();
     await expect.poll(async () => page.getByTestId('audit-table').textContent()).toMatch(/issued (the revision|revision 1)/);
     await page.getByRole('button', { name: 'Verify the chain' }).click();
     await expect(page.getByTestId('chain-result').textContent()).resolves.toMatch(/Chain intact/);
     await screenshot(page, 'audit');
+
+    // By study code and revision number, as people know them; the table names them too.
+    await page.getByLabel('Revision number or id').fill('1');
+    await page.getByLabel('Study code').fill(code.toLowerCase());
+    await expect.poll(async () => page.getByTestId('audit-table').textContent()).toContain(`took revision 1 of ${code} for checking`);
+    // Dates are typed as yyyy-mm-dd; anything else is named as wrong, not silently read.
+    await page.getByLabel('From date').fill('02/12/2026');
+    await page.getByText('use yyyy-mm-dd').waitFor();
+    await page.getByLabel('From date').fill(new Date().toISOString().slice(0, 10));
+    await expect(page.getByText('use yyyy-mm-dd').count()).resolves.toBe(0);
+    await expect.poll(async () => page.getByTestId('audit-table').textContent()).toContain(`revision 1 of ${code}`);
   });
 
   it('the administrator sees people, membership and limit sets, and a bad invitation is refused', async () => {
@@ -261,6 +273,26 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByTestId('cable-types').getByText('XL132-1000').waitFor();
     await screenshot(page, 'admin');
     expect(page.url()).toBe(`${appUrl}/admin`);
+  });
+
+  it('the designer starts revision 2, lengthens a section, and the comparison with the issued revision says so in words', async () => {
+    const page = sessionsPage(0);
+    await page.goto(revisionUrl);
+    await hydrated(page);
+    await page.getByRole('button', { name: 'Start a new revision' }).click();
+    await page.waitForURL((url) => url.href !== revisionUrl && /\/revisions\//.test(url.pathname));
+    await hydrated(page);
+    await page.getByLabel('Section 2 length').fill('500');
+    await page.getByTestId('unsaved').waitFor();
+    await page.getByRole('button', { name: 'Save inputs' }).click();
+    await page.getByTestId('unsaved').waitFor({ state: 'detached' });
+    await page.getByRole('tab', { name: 'History' }).click();
+    const changes = page.getByTestId('compare').getByTestId('input-changes');
+    await expect.poll(async () => (await changes.count()) && changes.textContent()).toMatch(/section \S+ length 480 m → 500 m/);
+    await expect(page.getByTestId('compare').textContent()).resolves.toMatch(/Revision 1 \(.+\) → revision 2/);
+    // The history tells the same change as a sentence, never as stored JSON.
+    await expect.poll(async () => page.getByTestId('history').textContent()).toMatch(/changed the inputs of .*section \S+ length 480 m → 500 m/);
+    await screenshot(page, 'comparison');
   });
 });
 

@@ -19,7 +19,7 @@ describe('audit trail', () => {
     const csv = await sessions.auditor.fetch(`/api/audit/export?revisionId=${revisionId}`);
     expect(csv.headers.get('content-type')).toContain('text/csv');
     const lines = (await csv.text()).trim().split('\r\n');
-    expect(lines[0]).toBe('id,at,actor_id,type,project_id,study_id,revision_id,detail,prev_hash,hash');
+    expect(lines[0]).toBe('id,at,actor_id,actor_name,type,event,project_id,project_code,project_name,study_id,study_code,revision_id,revision_number,detail,prev_hash,hash');
     expect(lines).toHaveLength(page.total + 1);
 
     const bad = await sessions.auditor.fetch('/api/audit?from=yesterday');

@@ -7,16 +7,24 @@ import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, formatDate } from '../ui/parts';
 import RecordDownload from '../revision/RecordDownload';
 import { detailWords, eventSentence } from '../../lib/records/event-sentences';
+import { isoDateOrNull } from '../../lib/format';
 
-const column = createColumnHelper<AuditRow>();
+/** The list endpoint also names each event's study code, revision number and project code. */
+type NamedAuditRow = AuditRow & { studyCode: string | null; revisionNumber: number | null; projectCode: string | null };
+/** Filters by study code and revision number ride along in the same query string. */
+type Filters = AuditFilters & { studyCode?: string; revisionNumber?: string };
+
+const revisionWords = (r: NamedAuditRow) => (r.revisionNumber != null ? `${r.studyCode ? `${r.studyCode} ` : ''}revision ${r.revisionNumber}` : 'open');
+
+const column = createColumnHelper<NamedAuditRow>();
 const columns = [
   column.accessor('id', { header: 'No.' }),
   column.accessor('at', { header: 'When (UTC)', cell: (c) => formatDate(c.getValue()) }),
   column.accessor('actorName', { header: 'Who', cell: (c) => c.getValue() ?? 'the system' }),
-  column.accessor('type', { header: 'What', cell: (c) => eventSentence({ type: c.getValue(), actorName: c.row.original.actorName, revisionNumber: null }).replace(/:.*$/, '.') }),
+  column.accessor('type', { header: 'What', cell: (c) => eventSentence({ type: c.getValue(), actorName: c.row.original.actorName, studyCode: c.row.original.studyCode, revisionNumber: c.row.original.revisionNumber }).replace(/:.*$/, '.') }),
   column.accessor('revisionId', {
     header: 'Revision',
-    cell: (c) => (c.getValue() ? <span className="flex items-center gap-2"><a className="text-copper underline" href={`/revisions/${c.getValue()}`}>open</a>{c.row.original.type === 'record.issued' && <RecordDownload revisionId={c.getValue()!} label="record" />}</span> : '—'),
+    cell: (c) => (c.getValue() ? <span className="flex items-center gap-2"><a className="text-copper underline" href={`/revisions/${c.getValue()}`}>{revisionWords(c.row.original)}</a>{c.row.original.type === 'record.issued' && <RecordDownload revisionId={c.getValue()!} label="record" />}</span> : '—'),
   }),
   // Detail in words; the stored JSON stays one click away for an auditor who needs it.
   column.accessor('detail', {
@@ -48,13 +56,14 @@ function ChainResult({ report }: { report: ChainReport }) {
 }
 
 function AuditBrowser() {
-  const [filters, setFilters] = useState<AuditFilters>({});
+  const [filters, setFilters] = useState<Filters>({});
+  const [dateText, setDateText] = useState({ from: '', to: '' });
   const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 20 });
   const facets = useQuery(auditFacetsQuery());
   const { data, isPending, error } = useQuery(auditQuery(filters, pagination.pageIndex, pagination.pageSize));
   const verify = useMutation({ mutationFn: () => api<ChainReport>('/api/audit/verify') });
-  const table = useReactTable({ data: data?.events ?? [], columns, getCoreRowModel: getCoreRowModel(), manualPagination: true, rowCount: data?.total ?? 0, state: { pagination }, onPaginationChange: setPagination });
-  const set = (k: keyof AuditFilters, v: string) => {
+  const table = useReactTable({ data: (data?.events ?? []) as NamedAuditRow[], columns, getCoreRowModel: getCoreRowModel(), manualPagination: true, rowCount: data?.total ?? 0, state: { pagination }, onPaginationChange: setPagination });
+  const set = (k: keyof Filters, v: string) => {
     setFilters((f) => ({ ...f, [k]: v || undefined }));
     setPagination((p) => ({ ...p, pageIndex: 0 }));
   };
@@ -71,9 +80,25 @@ function AuditBrowser() {
       <div className="flex flex-wrap gap-3 text-sm">
         <label>What<select aria-label="Event type" className={field} onChange={(e) => set('type', e.target.value)}><option value="">any</option>{facets.data?.types.map((t) => <option key={t} value={t}>{eventSentence({ type: t, actorName: 'someone', revisionNumber: null }).replace(/^someone /, '').replace(/[.:].*$/, '')}</option>)}</select></label>
         <label>Who<select aria-label="Person" className={field} onChange={(e) => set('actorId', e.target.value)}><option value="">anyone</option>{facets.data?.people.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}</select></label>
-        <label>Revision id<input aria-label="Revision id" className={field} onChange={(e) => set('revisionId', e.target.value.trim())} /></label>
-        <label>From<input aria-label="From date" type="date" className={field} onChange={(e) => set('from', e.target.value)} /></label>
-        <label>To<input aria-label="To date" type="date" className={field} onChange={(e) => set('to', e.target.value ? `${e.target.value}T23:59:59Z` : '')} /></label>
+        <label>Study code<input aria-label="Study code" className={`${field} w-20`} onChange={(e) => set('studyCode', e.target.value.trim())} /></label>
+        <label>Revision<input aria-label="Revision number or id" placeholder="number or id" className={`${field} w-28`} onChange={(e) => { const v = e.target.value.trim(); set('revisionNumber', /^\d+$/.test(v) ? v : ''); set('revisionId', /^\d+$/.test(v) ? '' : v); }} /></label>
+        {/* Typed as ISO text: a native date picker shows the browser's locale format. */}
+        {(['from', 'to'] as const).map((k) => {
+          const text = dateText[k];
+          const bad = text !== '' && !isoDateOrNull(text);
+          return (
+            <label key={k}>{k === 'from' ? 'From' : 'To'}
+              <input aria-label={k === 'from' ? 'From date' : 'To date'} placeholder="yyyy-mm-dd" pattern="\d{4}-\d{2}-\d{2}" inputMode="numeric" className={`${field} w-28 font-mono`} aria-invalid={bad} value={text}
+                onChange={(e) => {
+                  const v = e.target.value.trim();
+                  setDateText((d) => ({ ...d, [k]: v }));
+                  const iso = isoDateOrNull(v);
+                  if (v === '' || iso) set(k, iso ? (k === 'to' ? `${iso}T23:59:59.999Z` : `${iso}T00:00:00Z`) : '');
+                }} />
+              {bad && <span className="ml-1 text-xs text-fail">use yyyy-mm-dd</span>}
+            </label>
+          );
+        })}
       </div>
       {error ? <ErrorNote error={error} /> : isPending ? <Busy label="Loading events…" /> : data.total === 0 ? <Empty>No event matches these filters.</Empty> : (
         <>

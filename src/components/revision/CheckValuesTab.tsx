@@ -4,7 +4,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import { checkValueSchema } from '../../lib/schemas/revision-actions.schema';
-import { formatQuantity } from '../../lib/format';
+import { formatDifferencePct, formatQuantity } from '../../lib/format';
+import { itemKeyLabel } from '../../lib/compare/labels';
 import { Button, Empty, ErrorNote } from '../ui/parts';
 import { useRevisionAction } from './use-revision-action';
 
@@ -54,7 +55,7 @@ function Row({ v, editable, onChange, onDelete }: { v: CheckValue; editable: boo
   if (editing) {
     return (
       <tr className="border-t border-rule">
-        <td className="px-2 py-1">{v.itemKey}</td>
+        <td className="px-2 py-1">{itemKeyLabel(v.itemKey)}</td>
         <td className="px-2 py-1"><input aria-label="Corrected value" className="w-24 rounded border border-rule px-1" value={value} onChange={(e) => setValue(e.target.value)} /></td>
         <td className="px-2 py-1 font-mono">{formatQuantity(v.computedValue)}</td>
         <td className="px-2 py-1" colSpan={2} />
@@ -65,10 +66,10 @@ function Row({ v, editable, onChange, onDelete }: { v: CheckValue; editable: boo
   }
   return (
     <tr className="border-t border-rule">
-      <td className="px-2 py-1">{v.itemKey}</td>
+      <td className="px-2 py-1">{itemKeyLabel(v.itemKey)}</td>
       <td className="px-2 py-1 font-mono">{formatQuantity(v.checkerValue)}</td>
       <td className="px-2 py-1 font-mono">{formatQuantity(v.computedValue)}</td>
-      <td className={`px-2 py-1 font-mono ${out ? 'text-fail' : 'text-pass'}`}>{v.deviationPct.toFixed(2)} %</td>
+      <td className={`px-2 py-1 font-mono ${out ? 'text-fail' : 'text-pass'}`}>{formatDifferencePct(v.deviationPct)}</td>
       <td className="px-2 py-1">{v.tolerancePct} %</td>
       <td className="px-2 py-1">{v.explanation ?? (out ? 'needs an explanation' : '')}</td>
       <td className="px-2 py-1 whitespace-nowrap">

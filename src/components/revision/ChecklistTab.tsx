@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import type { ChecklistRow } from '../../lib/db/schema';
-import { formatQuantity } from '../../lib/format';
+import { formatMarginPct, formatQuantity } from '../../lib/format';
 import { Button, Empty, ErrorNote } from '../ui/parts';
 import { useRevisionAction } from './use-revision-action';
 
@@ -37,7 +37,7 @@ export default function ChecklistTab({ detail, userId, roles }: { detail: Revisi
               <td className="px-2 py-1">{i.caseId}</td>
               <td className="px-2 py-1 font-mono">{i.value === null ? '—' : formatQuantity(i.value, i.unit)}</td>
               <td className="px-2 py-1 font-mono">{i.limitValue === null ? '—' : formatQuantity(i.limitValue, i.unit)}</td>
-              <td className="px-2 py-1 font-mono">{i.marginPct === null ? '—' : `${i.marginPct.toFixed(1)} %`}</td>
+              <td className="px-2 py-1 font-mono">{i.marginPct === null ? '—' : formatMarginPct(i.marginPct)}</td>
               <td className={`px-2 py-1 font-semibold ${i.status === 'pass' ? 'text-pass' : i.status === 'fail' ? 'text-fail' : 'text-caution'}`}>{i.status === 'no-limit' ? 'no limit' : i.status.toUpperCase()}</td>
               <td className="px-2 py-1 text-xs">{i.source}</td>
               <td className="px-2 py-1"><Review item={i} mode={mode} onSave={save(i.itemKey)} /></td>

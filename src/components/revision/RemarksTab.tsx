@@ -3,6 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import { signedInQuery } from '../../lib/workflow/sign-offs.queries';
 import { Button, Empty, ErrorNote, formatDate } from '../ui/parts';
+import { itemKeyLabel } from '../../lib/compare/labels';
 import { useRevisionAction } from './use-revision-action';
 
 type Remark = RevisionDetail['remarks'][number];
@@ -25,13 +26,17 @@ export default function RemarksTab({ detail, canWrite }: { detail: RevisionDetai
   const isApprover = !!me && (me.projectRoles[detail.project.id] ?? []).includes('approver') && me.id !== r.designerId && me.id !== r.checkerId;
   const mayClose = (t: Remark) => !!me && (t.authorId === me.id || (r.checkerId === me.id && r.state !== 'checked') || (r.state === 'checked' && isApprover));
   const mayOpen = r.state !== 'checked' || isApprover;
+  const itemLabelFor = (key: string) => {
+    const item = detail.checklist.find((i) => i.itemKey === key);
+    return item ? `${item.title}${item.caseId ? `, case ${item.caseId}` : ''}` : itemKeyLabel(key);
+  };
   return (
     <div className="space-y-3">
       {threads.length === 0 ? <Empty>No remarks yet.</Empty> : (
         <ul className="space-y-2" data-testid="remarks">
           {threads.map((t) => (
             <li key={t.id} className={`rounded border px-3 py-2 ${t.resolved ? 'border-rule bg-paper' : 'border-copper bg-panel'}`} data-testid="remark-thread" data-open={!t.resolved}>
-              <div className="text-xs text-ink-soft">{KIND_WORD[t.kind] ?? 'Remark'} by {t.authorName}, {formatDate(t.createdAt)}{t.itemKey ? ` on ${t.itemKey}` : ''}: <strong>{t.resolved ? 'closed' : 'open'}</strong></div>
+              <div className="text-xs text-ink-soft">{KIND_WORD[t.kind] ?? 'Remark'} by {t.authorName}, {formatDate(t.createdAt)}{t.itemKey ? ` on ${itemLabelFor(t.itemKey)}` : ''}: <strong>{t.resolved ? 'closed' : 'open'}</strong></div>
               <p>{t.body}</p>
               {replies(t.id).map((m) => (
                 <div key={m.id} className="ml-4 mt-1 border-l-2 border-rule pl-2" data-testid="remark-reply">

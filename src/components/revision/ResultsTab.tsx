@@ -3,6 +3,7 @@ import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import type { BondingResults } from '../../lib/calc/bonding/results';
 import type { ExposureResults } from '../../lib/calc/exposure/solve-exposure';
 import { formatQuantity } from '../../lib/format';
+import { quantityLabel } from '../../lib/compare/labels';
 import { Caution, Empty } from '../ui/parts';
 import RouteProfileChart, { type Measurement } from './RouteProfileChart';
 import PhasorDiagram from './PhasorDiagram';
@@ -34,7 +35,7 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
         <h3 className="mb-2 font-semibold">Worst values over all cases</h3>
         <table className="w-full text-sm" data-testid="worst-values">
           <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Quantity</th><th className="px-2 py-1">Value</th><th className="px-2 py-1">Measured</th><th className="px-2 py-1">Case</th><th className="px-2 py-1">Where</th></tr></thead>
-          <tbody>{results.worst.map((w) => <tr key={w.quantity} className="border-t border-rule"><td className="px-2 py-1">{w.quantity.replace(/-/g, ' ')}</td><td className="px-2 py-1 font-mono">{formatQuantity(w.value, w.unit)}</td><td className="px-2 py-1">{w.reference ?? (w.unit === 'V' ? 'to remote earth' : '')}</td><td className="px-2 py-1">{w.caseId}</td><td className="px-2 py-1">{w.where}</td></tr>)}</tbody>
+          <tbody>{results.worst.map((w) => <tr key={w.quantity} className="border-t border-rule"><td className="px-2 py-1">{quantityLabel(w.quantity)}</td><td className="px-2 py-1 font-mono">{formatQuantity(w.value, w.unit)}</td><td className="px-2 py-1">{w.reference ?? (w.unit === 'V' ? 'to remote earth' : '')}</td><td className="px-2 py-1">{w.caseId}</td><td className="px-2 py-1">{w.where}</td></tr>)}</tbody>
         </table>
       </section>
       <section>

@@ -1,5 +1,6 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { CaseResult } from '../../lib/calc/bonding/results';
+import { formatQuantity } from '../../lib/format';
 
 const COLOURS = ['#a4522a', '#1f5f8b', '#2f6b3a', '#7a4ca0', '#b07d00', '#4a5668', '#c2185b', '#00796b', '#5d4037'];
 
@@ -19,7 +20,7 @@ export default function RouteProfileChart({ result, limitV, measurements = [] }:
           <CartesianGrid stroke="#e4dfd4" />
           <XAxis dataKey="x" type="number" domain={[0, 'dataMax']} unit=" m" label={{ value: 'distance along the route', position: 'insideBottom', offset: -10 }} />
           <YAxis unit=" V" domain={[0, (dataMax: number) => Math.ceil(Math.max(dataMax, (limitV ?? 0) * 1.1))]} />
-          <Tooltip formatter={(v) => `${Number(v).toFixed(2)} V`} labelFormatter={(x) => `${Number(x).toFixed(0)} m`} />
+          <Tooltip formatter={(v) => formatQuantity(Number(v), 'V')} labelFormatter={(x) => `${Number(x).toFixed(0)} m`} />
           <Legend verticalAlign="top" />
           {result.points.map((p) => <ReferenceLine key={`p${p.chainageM}`} x={p.chainageM} stroke="#c8c2b4" strokeDasharray="2 4" />)}
           {limitV !== null && <ReferenceLine y={limitV} stroke="#b3261e" strokeDasharray="8 6" label={{ value: `limit ${limitV} V`, fill: '#b3261e', position: 'insideTopLeft' }} />}

@@ -6,6 +6,7 @@ import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, StateBadge, formatDate } from '../ui/parts';
 import { STATE_LABEL } from '../ui/states';
 import NewStudyForm from './NewStudyForm';
+import { formatMarginPct } from '../../lib/format';
 
 const column = createColumnHelper<StudyRow>();
 const columns = [
@@ -14,7 +15,7 @@ const columns = [
   column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (c) => (c.getValue() === 'bonding' ? 'Cable bonding' : 'Metalwork exposure') }),
   column.accessor('revisionNumber', { header: 'Rev', enableSorting: false }),
   column.accessor('state', { header: 'Stage', enableSorting: false, cell: (c) => <StateBadge state={c.getValue()} /> }),
-  column.accessor('worstMarginPct', { header: 'Worst margin', enableSorting: false, cell: (c) => { const v = c.getValue(); return v === null ? '—' : <span className={v < 0 ? 'font-semibold text-fail' : 'text-pass'}>{v.toFixed(1)} %</span>; } }),
+  column.accessor('worstMarginPct', { header: 'Worst margin', enableSorting: false, cell: (c) => { const v = c.getValue(); return v === null ? '—' : <span className={v < 0 ? 'font-semibold text-fail' : 'text-pass'}>{formatMarginPct(v)}</span>; } }),
   column.accessor('openRemarks', { header: 'Open remarks', enableSorting: false }),
   column.accessor('updatedAt', { id: 'updated', header: 'Last change', cell: (c) => formatDate(c.getValue()) }),
 ];

@@ -1,6 +1,7 @@
-import { and, asc, desc, eq, gte, lte, sql, type SQL } from 'drizzle-orm';
+import { aliasedTable, and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
 import type { Database } from '../db/client';
-import { auditEvents, users, type AuditEvent } from '../db/schema';
+import { auditEvents, projects, revisions, studies, users, type AuditEvent } from '../db/schema';
+import { eventSentence } from '../records/event-sentences';
 import { canonicalJson, sha256Hex } from '../canonical-json';
 import { inScope, scopeCondition, type AuditScope } from './audit-scope';
 
@@ -88,6 +89,10 @@ export interface AuditFilter {
   projectId?: string;
   studyId?: string;
   revisionId?: string;
+  /** A study code as people know it (B10), any case; in several projects it matches each. */
+  studyCode?: string;
+  /** A revision number; with a study code, that study's revision, else that number of any study. */
+  revisionNumber?: number;
   actorId?: string;
   type?: string;
   from?: Date;
@@ -95,11 +100,19 @@ export interface AuditFilter {
 }
 
 function whereOf(scope: AuditScope, f: AuditFilter): SQL | undefined {
+  const codeMatches = f.studyCode ? sql`lower(${studies.code}) = lower(${f.studyCode})` : undefined;
   return and(
     scopeCondition(scope),
     f.projectId ? eq(auditEvents.projectId, f.projectId) : undefined,
     f.studyId ? eq(auditEvents.studyId, f.studyId) : undefined,
     f.revisionId ? eq(auditEvents.revisionId, f.revisionId) : undefined,
+    f.studyCode ? inArray(auditEvents.studyId, sql`(select ${studies.id} from ${studies} where ${codeMatches})`) : undefined,
+    f.revisionNumber !== undefined
+      ? inArray(
+          auditEvents.revisionId,
+          sql`(select ${revisions.id} from ${revisions} join ${studies} on ${studies.id} = ${revisions.studyId} where ${revisions.number} = ${f.revisionNumber}${codeMatches ? sql` and ${codeMatches}` : sql``})`,
+        )
+      : undefined,
     f.actorId ? eq(auditEvents.actorId, f.actorId) : undefined,
     f.type ? eq(auditEvents.type, f.type) : undefined,
     f.from ? gte(auditEvents.at, f.from) : undefined,
@@ -107,19 +120,40 @@ function whereOf(scope: AuditScope, f: AuditFilter): SQL | undefined {
   );
 }
 
+const eventStudy = aliasedTable(studies, 'event_study');
+const eventRevision = aliasedTable(revisions, 'event_revision');
+
+/** The events with the names people know them by: who, which project, study code, revision number. */
+function namedEvents(db: Database) {
+  return db
+    .select({
+      event: auditEvents,
+      actorName: users.name,
+      projectCode: projects.code,
+      projectName: projects.name,
+      studyCode: eventStudy.code,
+      revisionNumber: eventRevision.number,
+    })
+    .from(auditEvents)
+    .leftJoin(users, eq(users.id, auditEvents.actorId))
+    .leftJoin(projects, eq(projects.id, auditEvents.projectId))
+    .leftJoin(eventStudy, eq(eventStudy.id, auditEvents.studyId))
+    .leftJoin(eventRevision, eq(eventRevision.id, auditEvents.revisionId));
+}
+
+type NamedRow = Awaited<ReturnType<ReturnType<typeof namedEvents>['where']>>[number];
+
+const flatten = (r: NamedRow) => {
+  const named = { actorName: r.actorName, projectCode: r.projectCode, projectName: r.projectName, studyCode: r.studyCode, revisionNumber: r.revisionNumber };
+  return { ...r.event, ...named, sentence: eventSentence({ type: r.event.type, detail: r.event.detail, ...named }) };
+};
+
 /** A page of the events in scope, newest first. */
 export async function listAuditEvents(db: Database, scope: AuditScope, filter: AuditFilter, page: number, pageSize: number) {
   const where = whereOf(scope, filter);
   const [{ total }] = await db.select({ total: sql<number>`count(*)::int` }).from(auditEvents).where(where);
-  const rows = await db
-    .select({ event: auditEvents, actorName: users.name })
-    .from(auditEvents)
-    .leftJoin(users, eq(users.id, auditEvents.actorId))
-    .where(where)
-    .orderBy(desc(auditEvents.id))
-    .limit(pageSize)
-    .offset(page * pageSize);
-  return { total, events: rows.map((r) => ({ ...r.event, actorName: r.actorName })) };
+  const rows = await namedEvents(db).where(where).orderBy(desc(auditEvents.id)).limit(pageSize).offset(page * pageSize);
+  return { total, events: rows.map(flatten) };
 }
 
 /** The people who appear in the events in scope, for the person filter. */
@@ -137,15 +171,21 @@ export async function auditTypes(db: Database, scope: AuditScope): Promise<strin
   return (await db.selectDistinct({ type: auditEvents.type }).from(auditEvents).where(scopeCondition(scope)).orderBy(auditEvents.type)).map((r) => r.type);
 }
 
-/** Every matching event in scope as CSV, oldest first (RFC 4180 quoting). */
+const CSV_COLUMNS = [
+  'id', 'at', 'actor_id', 'actor_name', 'type', 'event', 'project_id', 'project_code', 'project_name',
+  'study_id', 'study_code', 'revision_id', 'revision_number', 'detail', 'prev_hash', 'hash',
+] as const;
+
+/** Every matching event in scope as CSV, oldest first (RFC 4180 quoting): ids with names and codes beside them, and the event as a sentence. */
 export async function exportAuditCsv(db: Database, scope: AuditScope, filter: AuditFilter): Promise<string> {
-  const rows = await db.select().from(auditEvents).where(whereOf(scope, filter)).orderBy(asc(auditEvents.id));
-  const header = ['id', 'at', 'actor_id', 'type', 'project_id', 'study_id', 'revision_id', 'detail', 'prev_hash', 'hash'];
+  const rows = (await namedEvents(db).where(whereOf(scope, filter)).orderBy(asc(auditEvents.id))).map(flatten);
   const cell = (v: unknown) => {
-    const s = v === null || v === undefined ? '' : typeof v === 'string' ? v : JSON.stringify(v);
+    const s = v === null || v === undefined ? '' : typeof v === 'string' ? v : typeof v === 'number' ? String(v) : JSON.stringify(v);
     return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
   };
-  const line = (r: AuditEvent) =>
-    [r.id, r.at.toISOString(), r.actorId, r.type, r.projectId, r.studyId, r.revisionId, r.detail, r.prevHash, r.hash].map(cell).join(',');
-  return [header.join(','), ...rows.map(line)].join('\r\n') + '\r\n';
+  const line = (r: ReturnType<typeof flatten>) =>
+    [r.id, r.at.toISOString(), r.actorId, r.actorName, r.type, r.sentence, r.projectId, r.projectCode, r.projectName, r.studyId, r.studyCode, r.revisionId, r.revisionNumber, r.detail, r.prevHash, r.hash]
+      .map(cell)
+      .join(',');
+  return [CSV_COLUMNS.join(','), ...rows.map(line)].join('\r\n') + '\r\n';
 }

@@ -6,6 +6,8 @@ const auditQuerySchema = listQuerySchema.extend({
   projectId: z.uuid().optional(),
   studyId: z.uuid().optional(),
   revisionId: z.uuid().optional(),
+  studyCode: z.string().trim().min(1).max(40).optional(),
+  revisionNumber: z.coerce.number().int().min(1).max(100_000).optional(),
   actorId: z.uuid().optional(),
   type: z.string().max(60).optional(),
   from: z.coerce.date().optional(),

@@ -22,7 +22,7 @@ export const verdictLabel = (s: string | null | undefined) => (s ? (VERDICT_LABE
 
 /** A checklist item in words: its title and, for a computed item, the case. */
 export const itemLabel = (item: { title: string; caseId?: string | null } | undefined, key: string) =>
-  item ? `${item.title}${item.caseId ? `, case ${item.caseId}` : ''}` : key.replace(/^manual:/, '').replace(/-/g, ' ').replace(/:/, ', case ');
+  item ? `${item.title}${item.caseId ? `, case ${item.caseId}` : ''}` : itemKeyLabel(key);
 
 export const CRITERION_LABEL: Record<string, string> = {
   'standing-voltage-normal': 'Standing voltage to local earth, normal load',
@@ -33,6 +33,26 @@ export const CRITERION_LABEL: Record<string, string> = {
   'metalwork-voltage-normal': 'Steady induced voltage on metalwork',
   'induced-emf-fault': 'Induced EMF during a fault',
   'ac-current-density': 'A.c. current density at a coating defect',
+  'svl-tov': 'SVL voltage during a fault against its TOV capability',
+  'svl-continuous': 'SVL standing voltage against its continuous rating',
+  'svl-energy': 'SVL energy absorbed while conducting',
 };
 
 export const criterionLabel = (k: string) => CRITERION_LABEL[k] ?? k.replace(/-/g, ' ');
+
+/**
+ * A stored checklist key in words when the item itself is not at hand:
+ * `joint-voltage-fault:F3` → "Voltage across a joint during a fault, case F3";
+ * `svl-tov:F3:0` → "… case F3, SVL 1" (SVLs are counted from 1 wherever people see them).
+ */
+export function itemKeyLabel(key: string): string {
+  if (key.startsWith('manual:')) {
+    const words = key.slice('manual:'.length).replace(/-/g, ' ');
+    return words.charAt(0).toUpperCase() + words.slice(1);
+  }
+  const [criterion, caseId, extra] = key.split(':');
+  const parts = [criterionLabel(criterion)];
+  if (caseId) parts.push(`case ${caseId}`);
+  if (extra !== undefined) parts.push(criterion.startsWith('svl-') && /^\d+$/.test(extra) ? `SVL ${Number(extra) + 1}` : extra);
+  return parts.join(', ');
+}

@@ -2,6 +2,9 @@
 // checking"), for the history tab, the audit browser and the record. Stored types stay
 // technical; people read these.
 
+import { formatNumber } from '../format';
+import { itemKeyLabel } from '../compare/labels';
+
 export interface EventForWords {
   type: string;
   actorName?: string | null;
@@ -26,6 +29,11 @@ const STEP_WORDS: Record<string, string> = {
   'checklist.updated': 'answered a checklist item of {rev}',
   'check-value.added': 'recorded a check value on {rev}',
   'remark.added': 'added a remark to {rev}',
+  'remark.resolved': 'closed a remark thread on {rev}',
+  'remark.reopened': 'reopened a remark thread on {rev}',
+  'checklist.agreed-remaining': 'agreed with every remaining checklist item of {rev}',
+  'check-value.changed': 'changed a check value on {rev}',
+  'check-value.deleted': 'deleted a check value from {rev}',
   'file.uploaded': 'attached a file to {rev}',
   'record.issued': 'The issued record of {rev} was stored',
   'record.failed': 'The issued record of {rev} could not be rendered',
@@ -47,7 +55,8 @@ const IMPERSONAL = new Set(['revision.supersede', 'record.issued', 'record.faile
 /** The event as one sentence, with its reason or most telling detail after a colon. */
 export function eventSentence(e: EventForWords): string {
   const rev = e.revisionNumber != null ? `revision ${e.revisionNumber}${e.studyCode ? ` of ${e.studyCode}` : ''}` : 'the revision';
-  const template = STEP_WORDS[e.type] ?? `${e.type.replace(/[.-]/g, ' ')}`;
+  // An unknown type still reads as words ("widget.re-sized" → "recorded widget re sized on …"), never as its key.
+  const template = STEP_WORDS[e.type] ?? `recorded ${e.type.replace(/[.-]/g, ' ')}${e.revisionNumber != null ? ' on {rev}' : ''}`;
   const detail = (e.detail ?? {}) as Record<string, unknown>;
   // A study's own creation carries its code in the detail when the caller did not name it.
   const studyCode = e.studyCode ?? (typeof detail.code === 'string' ? detail.code : '');
@@ -66,10 +75,15 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
     const v = d.verdicts as { pass?: number; fail?: number; noLimit?: number };
     return `engine ${str(d.engineVersion)}, limit-set version ${str(d.limitSetVersion)}; ${v.pass ?? 0} pass, ${v.fail ?? 0} fail, ${v.noLimit ?? 0} without a limit.`;
   }
-  if (type === 'revision.inputs-changed' && Array.isArray(d.changes)) {
-    const changes = d.changes as Array<{ path?: string; before?: unknown; after?: unknown; text?: string }>;
-    const shown = changes.slice(0, 5).map((c) => c.text ?? `${c.path} ${short(c.before)} → ${short(c.after)}`);
-    return `${shown.join('; ')}${changes.length > 5 ? `; and ${changes.length - 5} more` : ''}.`;
+  if (type === 'revision.inputs-changed') {
+    // Events since the sentences were stored carry them; older ones have only path/before/after.
+    const told = Array.isArray(d.sentences)
+      ? (d.sentences as unknown[]).filter((t): t is string => typeof t === 'string')
+      : Array.isArray(d.changes)
+        ? (d.changes as Array<{ path?: string; before?: unknown; after?: unknown; text?: string }>).map((c) => c.text ?? pathChange(c.path, c.before, c.after))
+        : [];
+    if (!told.length) return '';
+    return `${told.slice(0, 5).join('; ')}${told.length > 5 ? `; and ${told.length - 5} more` : ''}.`;
   }
   if (type === 'record.issued') return `document ${str(d.documentNumber) || '(no number)'}, SHA-256 ${str(d.sha256).slice(0, 16)}…`;
   if (type === 'record.failed') return str(d.error);
@@ -80,11 +94,30 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   // The code is already in the sentence ("created study B10"); the title follows.
   if (type === 'study.created') return str(d.title);
   if (type === 'membership.added' || type === 'membership.removed') return [str(d.name) || str(d.email), str(d.role)].filter(Boolean).join(', as ');
-  if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || str(d.itemKey)?.replace(/^manual:/, '').replace(/-/g, ' '), str(d.answer)].filter(Boolean).join(': ');
+  if (type === 'checklist.agreed-remaining' && typeof d.count === 'number') return `${d.count} item${d.count === 1 ? '' : 's'}`;
+  if (type === 'check-value.changed' && d.from && d.to) {
+    const [from, to] = [d.from, d.to] as Array<{ checkerValue?: unknown }>;
+    return `${str(d.itemKey) && itemKeyLabel(str(d.itemKey))}: ${typeof from.checkerValue === 'number' ? formatNumber(from.checkerValue) : '—'} → ${typeof to.checkerValue === 'number' ? formatNumber(to.checkerValue) : '—'}`;
+  }
+  if (type === 'check-value.deleted') return str(d.itemKey) && itemKeyLabel(str(d.itemKey));
+  if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || (str(d.itemKey) && itemKeyLabel(str(d.itemKey))), str(d.answer)].filter(Boolean).join(': ');
   return '';
 }
 
-const short = (v: unknown) => {
-  const s = typeof v === 'string' ? v : JSON.stringify(v);
-  return s === undefined ? 'none' : s.length > 40 ? `${s.slice(0, 37)}…` : s;
+const isObject = (v: unknown) => typeof v === 'object' && v !== null;
+
+/** An old stored change told by its path; an object is summarised, never printed as JSON. */
+export function pathChange(path: unknown, before: unknown, after: unknown): string {
+  const where = typeof path === 'string' && path ? path : 'the inputs';
+  if (isObject(after) && (before === null || before === undefined)) return `${where} added`;
+  if (isObject(before) && (after === null || after === undefined)) return `${where} removed`;
+  if (isObject(before) || isObject(after)) return `${where} changed`;
+  return `${where} ${scalar(before)} → ${scalar(after)}`;
+}
+
+const scalar = (v: unknown) => {
+  if (v === null || v === undefined) return 'none';
+  if (typeof v === 'number') return formatNumber(v);
+  const s = String(v);
+  return s.length > 40 ? `${s.slice(0, 37)}…` : s;
 };

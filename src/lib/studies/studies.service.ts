@@ -8,6 +8,7 @@ import { withLockedRevision } from '../db/revision-lock';
 import { appendAudit } from '../audit/audit-log';
 import { inputsHash } from '../canonical-json';
 import { jsonDiff } from '../json-diff';
+import { describeInputChanges } from '../compare/input-changes';
 import { CalculationError, ENGINE_VERSION, calculateStudy, evaluateCompliance } from '../calc';
 import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '../workflow/revision.machine';
 import { latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
@@ -64,7 +65,15 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
       .set({ inputs, inputsHash: inputsHash(inputs), version: sql`${revisions.version} + 1`, updatedAt: new Date() })
       .where(eq(revisions.id, revisionId))
       .returning();
-    await appendAudit(tx, { actorId: actor.id, type: 'revision.inputs-changed', projectId: study.projectId, studyId: study.id, revisionId, detail: { changes: jsonDiff(revision.inputs, inputs) } });
+    await appendAudit(tx, {
+      actorId: actor.id,
+      type: 'revision.inputs-changed',
+      projectId: study.projectId,
+      studyId: study.id,
+      revisionId,
+      // `changes` stays machine-readable (path, before, after); `sentences` is what people read.
+      detail: { changes: jsonDiff(revision.inputs, inputs), sentences: describeInputChanges(revision.inputs, inputs).slice(0, 50) },
+    });
     return updated;
   });
 }

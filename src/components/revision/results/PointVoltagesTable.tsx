@@ -56,7 +56,7 @@ export function SvlTable({ result }: { result: CaseResult }) {
       <tbody>
         {result.svls.map((s, i) => (
           <tr key={`${s.svlIndex}-${s.cable}-${i}`} className="border-t border-rule">
-            <td className="px-2 py-1">joint {s.jointIndex}</td>
+            <td className="px-2 py-1">SVL {s.svlIndex + 1}, joint {s.jointIndex}</td>
             <td className="px-2 py-1">{s.cable}</td>
             <td className="px-2 py-1">{s.terminals ?? (s.connection === 'across-joint' ? 'across the joint' : 'sheath to remote earth (engine 1)')}</td>
             <td className="px-2 py-1 font-mono">{formatQuantity(s.voltageV, 'V')}</td>
