@@ -256,7 +256,7 @@ export default function BondingEditor({ detail, readOnly }: { detail: RevisionDe
         </section>
 
         <section className={box}>
-          <h3 className="mb-2 font-semibold">Surge voltage limiters</h3>
+          <h3 className="mb-2 font-semibold">Sheath voltage limiters (SVLs)</h3>
           {svls.fields.map((f, i) => (
             <div key={f.id} className="mb-2 flex flex-wrap items-end gap-2">
               <Field register={register} errors={errors} name={`svls.${i}.jointIndex`} label="At joint no." />

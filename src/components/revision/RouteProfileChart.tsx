@@ -23,7 +23,7 @@ export default function RouteProfileChart({ result, limitV, measurements = [] }:
           <Tooltip formatter={(v) => formatQuantity(Number(v), 'V')} labelFormatter={(x) => `${Number(x).toFixed(0)} m`} />
           <Legend verticalAlign="top" />
           {result.points.map((p) => <ReferenceLine key={`p${p.chainageM}`} x={p.chainageM} stroke="#c8c2b4" strokeDasharray="2 4" />)}
-          {limitV !== null && <ReferenceLine y={limitV} stroke="#b3261e" strokeDasharray="8 6" label={{ value: `limit ${limitV} V`, fill: '#b3261e', position: 'insideTopLeft' }} />}
+          {limitV !== null && <ReferenceLine y={limitV} stroke="#b3261e" strokeDasharray="8 6" label={{ value: `limit ${limitV} V (to local earth)`, fill: '#b3261e', position: 'insideTopLeft' }} />}
           {result.profile.series.map((s, k) => (
             <Line key={s.label} dataKey={`s${k}`} name={s.label} stroke={COLOURS[k % COLOURS.length]} dot={false} strokeWidth={2} isAnimationActive={false} connectNulls={false} strokeDasharray={s.kind === 'ecc' ? '3 3' : undefined} />
           ))}

@@ -59,7 +59,7 @@ export function eventSentence(e: EventForWords): string {
   const template = STEP_WORDS[e.type] ?? `recorded ${e.type.replace(/[.-]/g, ' ')}${e.revisionNumber != null ? ' on {rev}' : ''}`;
   const detail = (e.detail ?? {}) as Record<string, unknown>;
   // A study's own creation carries its code in the detail when the caller did not name it.
-  const studyCode = e.studyCode ?? (typeof detail.code === 'string' ? detail.code : '');
+  const studyCode = e.studyCode || (typeof detail.code === 'string' ? detail.code : '');
   const action = template.replace('{rev}', rev).replace('{study}', studyCode);
   const who = e.actorName ?? 'Sheathwise';
   const head = IMPERSONAL.has(e.type) ? action.charAt(0).toUpperCase() + action.slice(1) : `${who} ${action}`;

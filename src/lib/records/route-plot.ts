@@ -38,7 +38,7 @@ export function routePlotSvg(c: CaseResult, limitV: number | null, width: number
   });
   if (limitV !== null) {
     parts.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${py(limitV)}" y2="${py(limitV)}" stroke="#b3261e" stroke-width="2.5" stroke-dasharray="12 8"/>`);
-    parts.push(`<text x="${m.left + 8}" y="${py(limitV) - 8}" font-size="16" fill="#b3261e">limit ${formatTick(limitV)} V</text>`);
+    parts.push(`<text x="${m.left + 8}" y="${py(limitV) - 8}" font-size="16" fill="#b3261e">limit ${formatTick(limitV)} V (to local earth)</text>`);
   }
   parts.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${height - m.bottom}" y2="${height - m.bottom}" stroke="#16202e"/>`);
   parts.push(`<line x1="${m.left}" x2="${m.left}" y1="${m.top}" y2="${height - m.bottom}" stroke="#16202e"/>`);
