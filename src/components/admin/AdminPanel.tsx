@@ -9,6 +9,7 @@ import { invitationSchema } from '../../lib/schemas/revision-actions.schema';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, ErrorNote } from '../ui/parts';
 import CableCatalogue from './CableCatalogue';
+import { criterionLabel } from '../../lib/compare/labels';
 
 const box = 'rounded-lg border border-rule bg-panel p-4';
 
@@ -85,7 +86,7 @@ function LimitSets() {
       {sets.data?.limitSets.map((s) => (
         <div key={s.id} className="mb-3">
           <h3 className="font-semibold">{s.name} <span className="text-sm text-ink-soft">version {s.latest?.version ?? '—'}, check tolerance {s.latest?.checkTolerancePct ?? '—'} %</span></h3>
-          <table className="w-full text-sm" data-testid="limits"><tbody>{Object.entries(s.latest?.limits ?? {}).map(([k, l]) => <tr key={k} className="border-t border-rule"><td className="py-1">{k}</td><td className="font-mono">{l.value} {l.unit}</td><td className="text-xs">{l.source}</td></tr>)}</tbody></table>
+          <table className="w-full text-sm" data-testid="limits"><tbody>{Object.entries(s.latest?.limits ?? {}).map(([k, l]) => <tr key={k} className="border-t border-rule"><td className="py-1">{criterionLabel(k)}</td><td className="font-mono">{l.value} {l.unit}</td><td className="text-xs">{l.source}</td></tr>)}</tbody></table>
           <Button tone="plain" onClick={() => setEditing({ id: s.id, text: JSON.stringify({ limits: s.latest?.limits ?? {}, manualItems: s.latest?.manualItems ?? [], checkTolerancePct: s.latest?.checkTolerancePct ?? 2 }, null, 2) })}>Publish a new version…</Button>
           {editing?.id === s.id && (
             <div className="mt-2 space-y-2">

@@ -31,7 +31,7 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
       [
         ['document number', data.documentNumber],
         ['project', `${data.project.code} ${data.project.name}`],
-        ['study', `${data.study.code} ${data.study.title} (${data.study.kind})`],
+        ['study', `${data.study.code} ${data.study.title} (${data.study.kind === 'bonding' ? 'sheath bonding study' : 'metalwork exposure study'})`],
         ['revision', `${data.revision.number}`],
         ['status', STATE_LABEL[data.revision.state] ?? data.revision.state],
         ['created', date(data.revision.createdAt)],

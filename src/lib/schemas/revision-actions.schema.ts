@@ -32,7 +32,7 @@ export const checklistUpdateSchema = z.union([
 ]);
 
 export const remarkSchema = z.object({
-  body: z.string().trim().min(1, 'Write the remark.').max(4000),
+  body: z.string().trim().min(1, 'Write the remark.').max(4000, 'A remark can hold up to 4,000 characters: split a longer one.'),
   itemKey: z.string().optional(),
   field: z.string().optional(),
   parentId: z.uuid().optional(),
