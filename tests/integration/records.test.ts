@@ -34,7 +34,7 @@ describe('calculation records', () => {
     const doc = readDocx(first.bytes);
     expect(doc.headerText).toContain('Issued record');
     // Title block.
-    expect(hasCell(doc.bodyText, `${detail.study.code} ${detail.study.title} (bonding)`)).toBe(true);
+    expect(hasCell(doc.bodyText, `${detail.study.code} ${detail.study.title} (sheath bonding study)`)).toBe(true);
     expect(hasCell(doc.bodyText, detail.revision.inputsHash)).toBe(true);
     expect(hasCell(doc.bodyText, 'issued')).toBe(true);
     // A results value equal to the core's, as the record prints it.
