@@ -8,7 +8,7 @@ import { currentVersion, demoSessions, drive, fixtureInputs, json, readyDraft, s
 type CsvRow = Record<string, string>;
 
 /**
- * RFC 4180 read back independently of the writer (papaparse is not installed in this tree):
+ * RFC 4180 read back independently of the writer (which uses papaparse):
  * quoted cells may hold commas, doubled quotes and line breaks.
  */
 function parseCsv(text: string): { fields: string[]; data: CsvRow[] } {

@@ -49,6 +49,13 @@ describe('cable types entered as construction', () => {
     expect(res.fields.map((f: { field: string }) => f.field).sort()).toEqual(['construction.conductor.diameterMm', 'construction.conductor.strandCount']);
     const typed = await json(await send(sessions.admin, 'POST', '/api/admin/cable-types', { ...good, id: code, conductorGmrMm: 12 }), 422);
     expect(typed.fields.map((f: { field: string }) => f.field)).toEqual(['conductorGmrMm']);
+    // A missing or empty identifier is named in words, not in the parser's terms.
+    const { id: _id, ...noId } = good;
+    const missing = await json(await send(sessions.admin, 'POST', '/api/admin/cable-types', noId), 422);
+    expect(missing.fields).toContainEqual({ field: 'id', message: 'Id is required.' });
+    const empty = await json(await send(sessions.admin, 'POST', '/api/admin/cable-types', { ...good, id: '' }), 422);
+    expect(empty.fields[0].field).toBe('id');
+    expect(empty.fields[0].message).not.toMatch(/Invalid input|expected|Too small/);
     expect((await catalogue(sessions.admin)).some((r) => r.code === code)).toBe(false);
   });
 

@@ -9,6 +9,7 @@ import { invitationSchema } from '../../lib/schemas/revision-actions.schema';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, ErrorNote } from '../ui/parts';
 import CableCatalogue from './CableCatalogue';
+import LimitSetVersionForm from './LimitSetVersionForm';
 import { criterionLabel } from '../../lib/compare/labels';
 
 const box = 'rounded-lg border border-rule bg-panel p-4';
@@ -72,30 +73,18 @@ function Membership() {
 
 function LimitSets() {
   const sets = useQuery(limitSetDetailsQuery());
-  const queryClient = useQueryClient();
-  const [editing, setEditing] = useState<{ id: string; text: string } | null>(null);
-  const [parseError, setParseError] = useState<string | null>(null);
-  const publish = useMutation({
-    mutationFn: (v: { id: string; body: unknown }) => api(`/api/admin/limit-sets/${v.id}/versions`, { method: 'POST', body: v.body }),
-    onSuccess: () => { setEditing(null); return queryClient.invalidateQueries({ queryKey: ['limit-sets'] }); },
-  });
+  const [editing, setEditing] = useState<string | null>(null);
   return (
     <section className={box} aria-labelledby="limit-sets">
       <h2 id="limit-sets" className="mb-2 text-lg font-semibold">Limit sets</h2>
-      <p className="mb-2 text-sm text-ink-soft">Each value carries its source. Publishing makes a new version; revisions keep the version they were checked against.</p>
-      {sets.data?.limitSets.map((s) => (
+      <p className="mb-2 text-sm text-ink-soft">Each value carries its source. Publishing makes a new version; revisions keep the version they were checked against. The values are the owner’s to set from their standards and local codes.</p>
+      {sets.isPending ? <Busy label="Loading…" /> : sets.error ? <ErrorNote error={sets.error} /> : sets.data.limitSets.map((s) => (
         <div key={s.id} className="mb-3">
           <h3 className="font-semibold">{s.name} <span className="text-sm text-ink-soft">version {s.latest?.version ?? '—'}, check tolerance {s.latest?.checkTolerancePct ?? '—'} %</span></h3>
           <table className="w-full text-sm" data-testid="limits"><tbody>{Object.entries(s.latest?.limits ?? {}).map(([k, l]) => <tr key={k} className="border-t border-rule"><td className="py-1">{criterionLabel(k)}</td><td className="font-mono">{l.value} {l.unit}</td><td className="text-xs">{l.source}</td></tr>)}</tbody></table>
-          <Button tone="plain" onClick={() => setEditing({ id: s.id, text: JSON.stringify({ limits: s.latest?.limits ?? {}, manualItems: s.latest?.manualItems ?? [], checkTolerancePct: s.latest?.checkTolerancePct ?? 2 }, null, 2) })}>Publish a new version…</Button>
-          {editing?.id === s.id && (
-            <div className="mt-2 space-y-2">
-              <textarea aria-label="New limit set version" className="h-64 w-full rounded border border-rule p-2 font-mono text-xs" value={editing.text} onChange={(e) => setEditing({ ...editing, text: e.target.value })} />
-              <Button onClick={() => { try { setParseError(null); publish.mutate({ id: s.id, body: JSON.parse(editing.text) }); } catch (e) { setParseError(`Not valid JSON: ${(e as Error).message}`); } }}>Publish</Button>
-              {parseError && <p role="alert" className="text-sm text-fail">{parseError}</p>}
-              <ErrorNote error={publish.error} />
-            </div>
-          )}
+          {editing === s.id
+            ? <LimitSetVersionForm limitSetId={s.id} latest={s.latest} onDone={() => setEditing(null)} />
+            : <Button tone="plain" onClick={() => setEditing(s.id)}>Publish a new version…</Button>}
         </div>
       ))}
     </section>

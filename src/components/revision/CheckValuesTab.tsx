@@ -36,7 +36,14 @@ export default function CheckValuesTab({ detail, canAdd }: { detail: RevisionDet
       <ErrorNote error={change.error ?? remove.error} />
       {canAdd && (
         <form noValidate className="grid gap-2 rounded border border-rule bg-panel p-3 sm:grid-cols-3" onSubmit={handleSubmit((v) => add.mutate(v, { onSuccess: () => reset() }))} aria-label="Add a check value">
-          <label className="text-sm">Result<select {...register('itemKey')} className="mt-1 w-full rounded border border-rule px-1">{items.map((i) => <option key={i.itemKey} value={i.itemKey}>{i.title.slice(0, 50)} ({i.caseId})</option>)}</select>{errors.itemKey && <span className="text-fail">{errors.itemKey.message}</span>}</label>
+          {/* Whole titles, grouped by case, across the form's width: two results of one case often differ only at the end. */}
+          <label className="text-sm sm:col-span-3">Result<select {...register('itemKey')} className="mt-1 w-full rounded border border-rule px-1">
+            {[...new Set(items.map((i) => i.caseId))].map((caseId) => (
+              <optgroup key={caseId ?? ''} label={caseId ? `Case ${caseId}` : 'Whole study'}>
+                {items.filter((i) => i.caseId === caseId).map((i) => <option key={i.itemKey} value={i.itemKey}>{i.title} (computed {formatQuantity(i.value ?? Number.NaN, i.unit ?? '')})</option>)}
+              </optgroup>
+            ))}
+          </select>{errors.itemKey && <span className="text-fail">{errors.itemKey.message}</span>}</label>
           <label className="text-sm">Your value<input aria-label="Your value" {...register('checkerValue', { valueAsNumber: true })} className="mt-1 w-full rounded border border-rule px-1" />{errors.checkerValue && <span className="text-fail">{errors.checkerValue.message}</span>}</label>
           <label className="text-sm">Explanation (if it deviates)<input {...register('explanation')} className="mt-1 w-full rounded border border-rule px-1" /></label>
           <div className="sm:col-span-3"><ErrorNote error={add.error} /><Button type="submit" disabled={add.isPending}>Record check value</Button></div>

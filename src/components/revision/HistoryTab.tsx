@@ -13,7 +13,7 @@ export default function HistoryTab({ revisionId }: { revisionId: string }) {
         <ol className="space-y-1 text-sm" data-testid="history">
           {data.events.map((e) => (
             <li key={e.id} className="border-l-2 border-copper pl-3">
-              <span className="font-mono text-xs text-ink-soft">{formatDate(e.at)}</span> {eventSentence({ type: e.type, actorName: e.actorName, detail: e.detail, revisionNumber: null })}
+              <span className="font-mono text-xs text-ink-soft">{formatDate(e.at)}</span> {eventSentence(e)}
             </li>
           ))}
         </ol>

@@ -79,10 +79,33 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
 }
 
 function ExposureResultsView({ results }: { results: ExposureResults }) {
+  const th = 'px-2 py-1';
   return (
     <table className="w-full text-sm" data-testid="exposure-results">
-      <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Case</th><th className="px-2 py-1">EMF</th><th className="px-2 py-1">Accessible voltage</th><th className="px-2 py-1">Tolerable touch</th><th className="px-2 py-1">Current</th></tr></thead>
-      <tbody>{results.cases.map((c) => <tr key={c.caseId} className="border-t border-rule"><td className="px-2 py-1">{c.caseId}: {c.name}</td><td className="px-2 py-1 font-mono">{formatQuantity(c.emfV, 'V')}</td><td className="px-2 py-1 font-mono">{formatQuantity(c.accessibleV, 'V')}</td><td className="px-2 py-1 font-mono">{c.tolerable ? formatQuantity(c.tolerable.touchV, 'V') : '—'}</td><td className="px-2 py-1 font-mono">{formatQuantity(c.currentA, 'A')}</td></tr>)}</tbody>
+      <thead className="bg-copper-light text-left">
+        <tr>
+          <th className={th}>Case</th>
+          <th className={th}>EMF along the run (end to end, both ends open)</th>
+          <th className={th}>Start to remote earth</th>
+          <th className={th}>End to remote earth</th>
+          <th className={th}>Tolerable touch</th>
+          <th className={th}>Current in the metalwork</th>
+        </tr>
+      </thead>
+      <tbody>
+        {results.cases.map((c) => (
+          <tr key={c.caseId} className="border-t border-rule">
+            <td className={th}>{c.caseId}: {c.name}</td>
+            <td className={`${th} font-mono`}>{formatQuantity(c.emfV, 'V')}</td>
+            {/* The accessible end (the larger) is marked: it is the value the checks compare. */}
+            <td className={`${th} font-mono ${c.accessibleAt === 'start' ? 'font-semibold' : ''}`}>{formatQuantity(c.startV, 'V')}</td>
+            <td className={`${th} font-mono ${c.accessibleAt !== 'start' ? 'font-semibold' : ''}`}>{formatQuantity(c.endV, 'V')}</td>
+            <td className={`${th} font-mono`}>{c.tolerable ? formatQuantity(c.tolerable.touchV, 'V') : '—'}</td>
+            <td className={`${th} font-mono`}>{formatQuantity(c.currentA, 'A')}</td>
+          </tr>
+        ))}
+      </tbody>
+      <caption className="caption-bottom pt-1 text-left text-xs text-ink-soft">Voltages to remote earth; the larger end (bold) is the accessible voltage that the checks compare, a conservative touch voltage where the ground at that end is not raised.</caption>
     </table>
   );
 }

@@ -1,5 +1,5 @@
 import { desc, eq } from 'drizzle-orm';
-import { z } from 'zod';
+import type { z } from 'zod';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import type { Database } from '../db/client';
@@ -7,16 +7,8 @@ import { AppError } from '../errors';
 import { limitSetVersions, limitSets } from '../db/schema';
 import { inTransaction } from '../db/transaction';
 import { appendAudit } from '../audit/audit-log';
-import { limitSetSchema } from '../schemas/limit-set.schema';
-import { manualItemSchema } from '../schemas/manual-item.schema';
+import type { limitSetVersionSchema } from '../schemas/limit-set.schema';
 import { jsonDiff } from '../json-diff';
-
-export const limitSetVersionSchema = z.object({
-  // A version without limits would let every computed check through as "no limit".
-  limits: limitSetSchema.shape.limits.refine((l) => Object.keys(l).length > 0, 'Give at least one limit: a limit set without limits cannot be published.'),
-  manualItems: z.array(manualItemSchema),
-  checkTolerancePct: z.number().positive('The tolerance must be above zero.').max(50),
-});
 
 /** Every limit set with its latest version. */
 export async function listLimitSets(db: Database) {

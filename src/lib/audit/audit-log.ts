@@ -3,6 +3,7 @@ import type { Database } from '../db/client';
 import { auditEvents, projects, revisions, studies, users, type AuditEvent } from '../db/schema';
 import { eventSentence } from '../records/event-sentences';
 import { canonicalJson, sha256Hex } from '../canonical-json';
+import { toCsv } from '../csv/csv-text';
 import { inScope, scopeCondition, type AuditScope } from './audit-scope';
 
 const GENESIS = 'genesis';
@@ -176,16 +177,11 @@ const CSV_COLUMNS = [
   'study_id', 'study_code', 'revision_id', 'revision_number', 'detail', 'prev_hash', 'hash',
 ] as const;
 
-/** Every matching event in scope as CSV, oldest first (RFC 4180 quoting): ids with names and codes beside them, and the event as a sentence. */
+/** Every matching event in scope as CSV, oldest first: ids with names and codes beside them, and the event as a sentence. */
 export async function exportAuditCsv(db: Database, scope: AuditScope, filter: AuditFilter): Promise<string> {
   const rows = (await namedEvents(db).where(whereOf(scope, filter)).orderBy(asc(auditEvents.id))).map(flatten);
-  const cell = (v: unknown) => {
-    const s = v === null || v === undefined ? '' : typeof v === 'string' ? v : typeof v === 'number' ? String(v) : JSON.stringify(v);
-    return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-  };
-  const line = (r: ReturnType<typeof flatten>) =>
-    [r.id, r.at.toISOString(), r.actorId, r.actorName, r.type, r.sentence, r.projectId, r.projectCode, r.projectName, r.studyId, r.studyCode, r.revisionId, r.revisionNumber, r.detail, r.prevHash, r.hash]
-      .map(cell)
-      .join(',');
-  return [CSV_COLUMNS.join(','), ...rows.map(line)].join('\r\n') + '\r\n';
+  return toCsv(
+    CSV_COLUMNS,
+    rows.map((r) => [r.id, r.at.toISOString(), r.actorId, r.actorName, r.type, r.sentence, r.projectId, r.projectCode, r.projectName, r.studyId, r.studyCode, r.revisionId, r.revisionNumber, r.detail, r.prevHash, r.hash]),
+  );
 }

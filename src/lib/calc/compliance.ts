@@ -143,7 +143,7 @@ function ratingItems(study: BondingStudy, c: CaseResult): ChecklistItem[] {
 export function evaluateExposureCompliance(results: ExposureResults, limits: LimitSet): ChecklistItem[] {
   const items: ChecklistItem[] = [];
   for (const c of results.cases) {
-    const at = { value: c.accessibleV, where: 'end of the parallel run' };
+    const at = { value: c.accessibleV, where: `${c.accessibleAt} of the parallel run, to ${c.reference}` };
     if (c.kind === 'normal') {
       const limit = limits.limits['metalwork-voltage-normal'];
       items.push(item('metalwork-voltage-normal', 'Steady induced voltage on the metalwork', c.caseId, at, limit?.value ?? null, 'V', source(limits, 'metalwork-voltage-normal')));
@@ -153,7 +153,7 @@ export function evaluateExposureCompliance(results: ExposureResults, limits: Lim
       }
     } else {
       const emf = limits.limits['induced-emf-fault'];
-      items.push(item('induced-emf-fault', 'Induced EMF during the fault', c.caseId, { value: c.emfV, where: 'along the parallel run' }, emf?.value ?? null, 'V', source(limits, 'induced-emf-fault')));
+      items.push(item('induced-emf-fault', 'Induced EMF during the fault', c.caseId, { value: c.emfV, where: 'along the parallel run, end to end with both ends open' }, emf?.value ?? null, 'V', source(limits, 'induced-emf-fault')));
       if (c.tolerable) {
         items.push(item('touch-voltage-fault', 'Accessible voltage against the tolerable touch voltage', c.caseId, at, c.tolerable.touchV, 'V', `IEEE Std 80-2013 body-current method, ${c.durationS} s`));
       }

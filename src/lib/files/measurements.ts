@@ -1,5 +1,6 @@
 import type { BondingResults } from '../calc/bonding/results';
 import { circuitCurrentA } from '../calc/bonding/case-sources';
+import { cellNumber, parseCsv } from '../csv/csv-text';
 import type { BondingStudy } from '../schemas/bonding-study.schema';
 
 /** One commissioning reading: standing voltage at a link box on one sheath, at a known load. */
@@ -15,22 +16,20 @@ export interface Measurement {
  * is required; order free). Returns the rows, or every line that is wrong.
  */
 export function parseMeasurements(text: string): { rows: Measurement[] } | { errors: string[] } {
-  const lines = text.split(/\r?\n/).map((l) => l.trim()).filter(Boolean);
-  const header = (lines.shift() ?? '').split(/[,;\t]/).map((h) => h.trim().toLowerCase());
-  const col = (name: string) => header.indexOf(name);
-  const missing = ['joint', 'cable', 'measured_v', 'load_a'].filter((c) => col(c) < 0);
+  const csv = parseCsv(text);
+  const missing = ['joint', 'cable', 'measured_v', 'load_a'].filter((c) => !csv.header.includes(c));
   if (missing.length) return { errors: [`The header row lacks ${missing.join(', ')}: expected joint, cable, measured_v, load_a.`] };
   const rows: Measurement[] = [];
-  const errors: string[] = [];
-  lines.forEach((line, i) => {
-    const cells = line.split(/[,;\t]/).map((c) => c.trim());
-    const row = { jointIndex: Number(cells[col('joint')]), cable: cells[col('cable')], measuredV: Number(cells[col('measured_v')]), loadCurrentA: Number(cells[col('load_a')]) };
-    if (!Number.isInteger(row.jointIndex) || row.jointIndex < 0) errors.push(`Line ${i + 2}: joint must be a joint number (0, 1, 2 …).`);
-    else if (!row.cable) errors.push(`Line ${i + 2}: give the cable (for example C1-a).`);
-    else if (!Number.isFinite(row.measuredV) || row.measuredV < 0) errors.push(`Line ${i + 2}: measured_v must be a voltage of zero or more.`);
-    else if (!Number.isFinite(row.loadCurrentA) || row.loadCurrentA <= 0) errors.push(`Line ${i + 2}: load_a must be the load current at the time, above zero.`);
+  const errors: string[] = [...csv.errors];
+  for (const { line, cells } of csv.rows) {
+    const num = (name: string) => cellNumber(cells[name], csv.delimiter);
+    const row = { jointIndex: num('joint'), cable: cells.cable, measuredV: num('measured_v'), loadCurrentA: num('load_a') };
+    if (!Number.isInteger(row.jointIndex) || row.jointIndex < 0) errors.push(`Line ${line}: joint must be a joint number (0, 1, 2 …).`);
+    else if (!row.cable) errors.push(`Line ${line}: give the cable (for example C1-a).`);
+    else if (!Number.isFinite(row.measuredV) || row.measuredV < 0) errors.push(`Line ${line}: measured_v must be a voltage of zero or more.`);
+    else if (!Number.isFinite(row.loadCurrentA) || row.loadCurrentA <= 0) errors.push(`Line ${line}: load_a must be the load current at the time, above zero.`);
     else rows.push(row);
-  });
+  }
   if (!rows.length && !errors.length) errors.push('The file has a header but no readings.');
   return errors.length ? { errors } : { rows };
 }

@@ -19,7 +19,7 @@ export const revisionQuery = (revisionId: string) =>
 export const revisionHistoryQuery = (revisionId: string) =>
   queryOptions({
     queryKey: ['revision', revisionId, 'history'],
-    queryFn: () => api<{ events: Array<{ id: number; at: string; type: string; actorName: string; detail: Record<string, unknown> }> }>(`/api/revisions/${revisionId}/history`),
+    queryFn: () => api<{ events: Array<{ id: number; at: string; type: string; actorName: string; detail: Record<string, unknown>; revisionNumber: number; studyCode: string }> }>(`/api/revisions/${revisionId}/history`),
   });
 
 export const studyQuery = (studyId: string) =>

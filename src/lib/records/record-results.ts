@@ -10,7 +10,7 @@ export function resultBlocks(results: StudyResults): Array<Paragraph | Table> {
   if (results.kind === 'exposure') {
     return [
       textTable(
-        ['case', 'EMF (V)', 'start (V)', 'end (V)', 'current (A)', 'tolerable touch (V)', 'a.c. density (A/m²)'],
+        ['case', 'EMF along the run, ends open (V)', 'start to remote earth (V)', 'end to remote earth (V)', 'current (A)', 'tolerable touch (V)', 'a.c. density (A/m²)'],
         results.cases.map((c) => [
           `${c.caseId}: ${c.name}`,
           formatQuantity(c.emfV),
@@ -21,6 +21,7 @@ export function resultBlocks(results: StudyResults): Array<Paragraph | Table> {
           c.acCurrentDensityAPerM2 === undefined ? '—' : formatQuantity(c.acCurrentDensityAPerM2),
         ]),
       ),
+      body('The end voltages are to remote earth; the larger is the accessible voltage the checks compare, conservative where the ground at that end is raised by the metalwork’s own electrode.', { italic: true }),
     ];
   }
   const blocks: Array<Paragraph | Table> = [

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './plain-messages';
 import { checkBondingStudy } from '../calc/bonding/study-checks';
 import { checkCableConstruction } from '../calc/cable/construction-checks';
 import { DERIVED_ENGINE_FIELDS, deriveCableParameters } from '../calc/cable/derive-cable';

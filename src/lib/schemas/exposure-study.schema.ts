@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './plain-messages';
 import { checkExposureStudy } from '../calc/exposure/exposure-checks';
 
 // An exposure study: metalwork running parallel to current-carrying conductors (an overhead

@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import './plain-messages';
+import { manualItemSchema } from './manual-item.schema';
 
 /** Criteria a limit set can give a value for; other checks take their limit from the study (SVL ratings, oversheath withstand, IEEE 80 tolerable voltages). */
 export const criterionKeys = [
@@ -29,3 +31,23 @@ export const limitSetSchema = z.object({
 
 export type LimitSet = z.output<typeof limitSetSchema>;
 export type Limit = z.output<typeof limitSchema>;
+
+/** What an administrator publishes as a limit set's next version. */
+export const limitSetVersionSchema = z.object({
+  // A version without limits would let every computed check through as "no limit".
+  limits: limitSetSchema.shape.limits.refine((l) => Object.keys(l).length > 0, 'Give at least one limit: a limit set without limits cannot be published.'),
+  manualItems: z.array(manualItemSchema).refine((items) => new Set(items.map((i) => i.key)).size === items.length, 'Two questions share a key: each needs its own.'),
+  checkTolerancePct: z.number().positive('The tolerance must be above zero.').max(50),
+});
+
+/** The unit each criterion's limit is given in. */
+export const criterionUnits: Record<CriterionKey, Limit['unit']> = {
+  'standing-voltage-normal': 'V',
+  'standing-voltage-emergency': 'V',
+  'joint-voltage-fault': 'V',
+  'loss-factor': '',
+  'ecc-current-fault': 'A',
+  'metalwork-voltage-normal': 'V',
+  'induced-emf-fault': 'V',
+  'ac-current-density': 'A/m²',
+};

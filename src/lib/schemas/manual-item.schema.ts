@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './plain-messages';
 
 /** A checklist question answered by people, kept with the limit set. */
 export const manualItemSchema = z.object({

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './plain-messages';
 
 // Request bodies of the revision endpoints: one schema each, used by the API and the forms.
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './plain-messages';
 
 export const signInSchema = z.object({
   email: z.string().trim().min(1, 'Enter your e-mail address.').email('This is not an e-mail address.'),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import './plain-messages';
 import { bondingStudySchema } from './bonding-study.schema';
 import { exposureStudySchema } from './exposure-study.schema';
 

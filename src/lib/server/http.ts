@@ -3,6 +3,7 @@ import type { z } from 'zod';
 import { AppError } from '../errors';
 import { databaseAppError } from '../db/database-errors';
 import { unstorableText } from './storable-text';
+import '../schemas/plain-messages';
 
 /** Wraps an endpoint so that catalogue errors become JSON with their status, and nothing else leaks. */
 export function endpoint(handler: (ctx: APIContext) => Promise<Response> | Response): APIRoute {

@@ -47,4 +47,19 @@ describe('compliance checklist', () => {
     expect(touch.limit).toBeCloseTo((1000 + 1.5 * 80) * (0.116 / Math.sqrt(0.5)), 6);
     expect(items.map((i) => i.criterion)).toEqual(['metalwork-voltage-normal', 'induced-emf-fault', 'touch-voltage-fault']);
   });
+
+  it('names the reference of every exposure voltage: the far end of a fence earthed at its start is the accessible one', () => {
+    const fence = studySchema.parse(JSON.parse(readFileSync('tests/fixtures/studies/marrow-lane-fence-exposure.json', 'utf8')));
+    const results = calculateStudy(fence);
+    if (results.kind !== 'exposure') throw new Error('expected an exposure result');
+    for (const c of results.cases) {
+      // Earthed at the start only: the start sits near remote earth, the free end carries the EMF (common practice).
+      expect(c.reference).toBe('remote earth');
+      expect(c.accessibleAt).toBe('end');
+      expect(c.endV).toBeGreaterThan(c.startV);
+    }
+    const items = evaluateCompliance(fence, results, demoLimits);
+    expect(items.find((i) => i.criterion === 'metalwork-voltage-normal')!.where).toBe('end of the parallel run, to remote earth');
+    expect(items.find((i) => i.criterion === 'induced-emf-fault')!.where).toMatch(/end to end with both ends open/);
+  });
 });

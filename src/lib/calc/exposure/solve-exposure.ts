@@ -11,13 +11,20 @@ export interface ExposureCaseResult {
   name: string;
   kind: 'normal' | 'fault';
   durationS?: number;
-  /** Longitudinal EMF along the whole parallel length, after screening, V. */
+  /** Longitudinal EMF along the whole parallel length, after screening, V: end to end with both ends open. */
   emfV: number;
+  /** The metalwork's start and end to remote earth, V. */
   startV: number;
   endV: number;
   currentA: number;
-  /** The larger of the two end voltages to earth: what a person can touch. */
+  /**
+   * The larger of the two end voltages to remote earth: what a person standing on undisturbed
+   * ground can touch. Conservative where the ground near the end is raised by the object's own electrode.
+   */
   accessibleV: number;
+  accessibleAt: 'start' | 'end';
+  /** What every voltage here except the EMF is measured against. */
+  reference: 'remote earth';
   tolerable?: { touchV: number; stepV: number; bodyCurrentA: number; surfaceFactor: number };
   /** Pipelines, normal cases: a.c. current density at the assumed coating defect, A/m². */
   acCurrentDensityAPerM2?: number;
@@ -67,6 +74,8 @@ export function calculateExposureStudy(study: ExposureStudy): ExposureResults {
       endV,
       currentA: abs(solution.segmentCurrents(0)[0]),
       accessibleV,
+      accessibleAt: startV >= endV ? 'start' : 'end',
+      reference: 'remote earth',
       tolerable: tolerable && { touchV: tolerable.touchV, stepV: tolerable.stepV, bodyCurrentA: tolerable.bodyCurrentA, surfaceFactor: tolerable.surfaceFactor },
       acCurrentDensityAPerM2:
         o.type === 'pipeline' && c.kind === 'normal' && o.coatingDefectDiameterMm

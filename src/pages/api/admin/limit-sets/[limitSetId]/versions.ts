@@ -1,7 +1,8 @@
 import { authorize } from '../../../../../lib/server/authorize';
 import { endpoint, parseBody } from '../../../../../lib/server/http';
 import { services } from '../../../../../lib/server/services.server';
-import { limitSetVersionSchema, publishLimitSetVersion } from '../../../../../lib/admin/limit-sets.service';
+import { publishLimitSetVersion } from '../../../../../lib/admin/limit-sets.service';
+import { limitSetVersionSchema } from '../../../../../lib/schemas/limit-set.schema';
 import { assertId } from '../../../../../lib/db/revisions.repo';
 
 export const POST = endpoint(async ({ locals, params, request }) => {
