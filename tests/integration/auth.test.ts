@@ -86,6 +86,10 @@ describe('authorisation', () => {
     const body = await res.json();
     expect(body.users.map((u: { email: string }) => u.email)).toContain(demo.designer);
     expect(JSON.stringify(body)).not.toContain('password');
+    // Each person with their roles per project, so the administrator sees who may do what.
+    const designer = body.users.find((u: { email: string }) => u.email === demo.designer);
+    expect(designer.roles).toContainEqual({ role: 'designer', projectCode: expect.any(String) });
+    expect(designer.roles.every((r: { role: string }) => ['designer', 'checker', 'approver', 'auditor'].includes(r.role))).toBe(true);
   });
 
   it('reports database and mail reachable on /api/health', async () => {

@@ -26,7 +26,7 @@ function People() {
     <section className={box} aria-labelledby="people">
       <h2 id="people" className="mb-2 text-lg font-semibold">People</h2>
       {users.isPending ? <Busy label="Loading…" /> : (
-        <table className="mb-3 w-full text-sm" data-testid="users"><tbody>{users.data?.users.map((u) => <tr key={u.id} className="border-t border-rule"><td className="py-1">{u.name}</td><td>{u.email}</td><td>{u.isAdmin ? 'administrator' : ''}</td></tr>)}</tbody></table>
+        <table className="mb-3 w-full text-sm" data-testid="users"><tbody>{users.data?.users.map((u) => <tr key={u.id} className="border-t border-rule"><td className="py-1">{u.name}</td><td>{u.email}</td><td data-testid="user-roles">{[u.isAdmin ? 'administrator' : '', ...u.roles.map((r) => `${r.role} in ${r.projectCode}`)].filter(Boolean).join(', ') || 'no role yet'}</td></tr>)}</tbody></table>
       )}
       <form noValidate onSubmit={handleSubmit((v) => invite.mutate(v))} className="flex flex-wrap items-end gap-2" aria-label="Invite someone">
         <label className="text-sm">E-mail<input aria-label="Invitee e-mail" {...register('email')} className="ml-1 rounded border border-rule px-1" />{errors.email && <span className="block text-xs text-fail">{errors.email.message}</span>}</label>

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import type { Database } from './client';
-import { memberships, users, type User } from './schema';
+import { memberships, projects, users, type User } from './schema';
 import type { SessionUser } from '../auth/roles';
 import type { ProjectRole } from './schema/projects';
 
@@ -19,10 +19,16 @@ export async function loadSessionUser(db: Database, id: string): Promise<Session
   return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, projectRoles };
 }
 
-/** Users for the admin screen, without password data. */
+/** Users for the admin screen, without password data, each with their roles as "role in project code". */
 export async function listUsers(db: Database) {
-  return db
+  const people = await db
     .select({ id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin, createdAt: users.createdAt })
     .from(users)
     .orderBy(users.name);
+  const roles = await db
+    .select({ userId: memberships.userId, role: memberships.role, projectCode: projects.code })
+    .from(memberships)
+    .innerJoin(projects, eq(projects.id, memberships.projectId))
+    .orderBy(projects.code, memberships.role);
+  return people.map((p) => ({ ...p, roles: roles.filter((r) => r.userId === p.id).map(({ role, projectCode }) => ({ role, projectCode })) }));
 }

@@ -2,7 +2,7 @@ import { queryOptions } from '@tanstack/react-query';
 import { api } from './api-client';
 
 export const usersQuery = () =>
-  queryOptions({ queryKey: ['admin', 'users'], queryFn: () => api<{ users: Array<{ id: string; email: string; name: string; isAdmin: boolean }> }>('/api/admin/users') });
+  queryOptions({ queryKey: ['admin', 'users'], queryFn: () => api<{ users: Array<{ id: string; email: string; name: string; isAdmin: boolean; roles: Array<{ role: string; projectCode: string }> }> }>('/api/admin/users') });
 
 export const projectsQuery = () =>
   queryOptions({ queryKey: ['projects'], queryFn: () => api<{ projects: Array<{ id: string; code: string; name: string }> }>('/api/projects') });
