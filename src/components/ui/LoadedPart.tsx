@@ -31,10 +31,11 @@ class PartFailure extends Component<{ children: ReactNode }, { error: Error | nu
     // again (after a new release its file name has changed too).
     return (
       <div role="alert" className="rounded border border-fail bg-fail/10 px-3 py-2 text-sm text-fail">
-        <p>This part of the page could not be shown: {this.state.error.message}</p>
+        <p>This part of the page could not be shown. Reload the page to try again; if it keeps failing, tell your administrator.</p>
         <button type="button" className="mt-1 underline" onClick={() => window.location.reload()}>
           Reload the page
         </button>
+        <p className="mt-1 text-xs text-ink-soft">Detail: {this.state.error.message}</p>
       </div>
     );
   }
