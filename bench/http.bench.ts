@@ -7,6 +7,7 @@ import pg from 'pg';
 import { calculateStudy } from '../src/lib/calc';
 import { signedIn } from '../tests/helpers/http-session';
 import { DEMO_PASSWORD } from '../tests/helpers/env';
+import { firstLoadScripts, scriptsNamedIn, totalBytes } from '../tests/helpers/first-load-js';
 import { crossBondedRoute } from './reference-routes';
 
 const base = process.env.APP_URL!;
@@ -59,21 +60,10 @@ async function load(label: string, cookie: string, requests: autocannon.Request[
   console.log(`${label.padEnd(44)} p50 ${percentile(times, 50).toFixed(0).padStart(5)} ms  p95 ${percentile(times, 95).toFixed(0).padStart(5)} ms  p99 ${percentile(times, 99).toFixed(0).padStart(5)} ms  ${result.requests.average.toFixed(0).padStart(5)} req/s  [${codes}]`);
 }
 
-/** First-load JavaScript of a page: every /_astro script it names and their static imports, gzipped. */
+/** First-load JavaScript of a page, as served: every /_astro script it names and their static imports, gzipped. */
 async function pageJsGzip(path: string, cookie: string): Promise<number> {
   const html = await (await fetch(base + path, { headers: { cookie } })).text();
-  const seen = new Set<string>();
-  const queue = [...html.matchAll(/\/_astro\/[\w.-]+\.js/g)].map((m) => m[0]);
-  let total = 0;
-  while (queue.length) {
-    const file = queue.pop()!;
-    if (seen.has(file)) continue;
-    seen.add(file);
-    const code = await (await fetch(base + file)).text();
-    total += gzipSync(code).length;
-    for (const m of code.matchAll(/(?:^|[;\s])import\s*(?:[\w*{}\s,$]+from\s*)?["']\.\/([\w.-]+\.js)["']/g)) queue.push(`/_astro/${m[1]}`);
-  }
-  return total;
+  return totalBytes(await firstLoadScripts(scriptsNamedIn(html), async (file) => (await fetch(base + file)).text()));
 }
 
 const db = new pg.Client({ connectionString: process.env.DATABASE_URL });

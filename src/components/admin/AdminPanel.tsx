@@ -1,16 +1,20 @@
-import { useState } from 'react';
+import { lazy, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { api } from '../../lib/queries/api-client';
 import { limitSetDetailsQuery, membersQuery, projectsQuery, usersQuery } from '../../lib/queries/admin.queries';
-import { invitationSchema } from '../../lib/schemas/revision-actions.schema';
+import { invitationSchema } from '../../lib/schemas/invitation.schema';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, ErrorNote } from '../ui/parts';
-import CableCatalogue from './CableCatalogue';
 import LimitSetVersionForm from './LimitSetVersionForm';
+import { LoadedPart } from '../ui/LoadedPart';
 import { criterionLabel } from '../../lib/compare/labels';
+
+// The catalogue brings the cable schema and the derivation code; it sits last on the page, so it
+// is fetched after the rest has drawn.
+const CableCatalogue = lazy(() => import('./CableCatalogue'));
 
 const box = 'rounded-lg border border-rule bg-panel p-4';
 
@@ -97,7 +101,9 @@ function AdminPanel() {
       <People />
       <Membership />
       <LimitSets />
-      <CableCatalogue />
+      <LoadedPart loadingLabel="Loading the cable-type catalogue…">
+        <CableCatalogue />
+      </LoadedPart>
     </div>
   );
 }

@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { acceptInvitationSchema } from '../../lib/schemas/revision-actions.schema';
+import { acceptInvitationSchema } from '../../lib/schemas/accept-invitation.schema';
 
 const formSchema = acceptInvitationSchema
   .extend({ repeat: z.string() })

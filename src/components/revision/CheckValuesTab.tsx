@@ -3,7 +3,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
-import { checkValueSchema } from '../../lib/schemas/revision-actions.schema';
+import { checkValueSchema } from '../../lib/schemas/check-value.schema';
 import { formatDifferencePct, formatQuantity } from '../../lib/format';
 import { itemKeyLabel } from '../../lib/compare/labels';
 import { Button, Empty, ErrorNote } from '../ui/parts';

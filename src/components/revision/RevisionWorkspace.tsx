@@ -4,19 +4,35 @@ import { revisionQuery } from '../../lib/queries/revisions.queries';
 import type { WorkflowRole } from '../../lib/workflow/revision.machine';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, ErrorNote, StateBadge } from '../ui/parts';
-import BondingEditor from '../editor/BondingEditor';
-import JsonInputsEditor from '../editor/JsonInputsEditor';
+import { LoadedPart } from '../ui/LoadedPart';
 import WorkflowBar from './WorkflowBar';
-import ResultsTab from './ResultsTab';
-import ChecklistTab from './ChecklistTab';
-import RemarksTab from './RemarksTab';
-import CheckValuesTab from './CheckValuesTab';
-import HistoryTab from './HistoryTab';
 import RecordDownload from './RecordDownload';
-import FilesTab from './FilesTab';
+import { BondingEditor, CheckValuesTab, ChecklistTab, FilesTab, HistoryTab, JsonInputsEditor, RemarksTab, ResultsTab, TAB_CODE } from './workspace-tabs';
 
 const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History'] as const;
 type Tab = (typeof TABS)[number];
+
+/** The code a tab needs, fetched ahead when the pointer or focus reaches its button. */
+function tabCode(tab: Tab, kind: string): () => Promise<unknown> {
+  switch (tab) {
+    case 'Inputs':
+      return kind === 'bonding' ? TAB_CODE.bondingEditor : TAB_CODE.jsonEditor;
+    case 'Inputs as JSON':
+      return TAB_CODE.jsonEditor;
+    case 'Results':
+      return TAB_CODE.results;
+    case 'Checklist':
+      return TAB_CODE.checklist;
+    case 'Remarks':
+      return TAB_CODE.remarks;
+    case 'Check values':
+      return TAB_CODE.checkValues;
+    case 'Files':
+      return TAB_CODE.files;
+    case 'History':
+      return TAB_CODE.history;
+  }
+}
 
 function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; userId: string; roles: WorkflowRole[] }) {
   const { data, isPending, error } = useQuery(revisionQuery(revisionId));
@@ -28,6 +44,8 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
   const participant = roles.some((x) => x !== 'auditor') && !['issued', 'withdrawn', 'superseded'].includes(r.state);
   const current: Tab = tab ?? (editable ? 'Inputs' : r.results ? 'Results' : 'Inputs');
   const openRemarks = data.remarks.filter((m) => !m.resolved).length;
+  // A failed prefetch is not shown: opening the tab fetches again and reports the failure there.
+  const prefetch = (t: Tab) => void tabCode(t, data.study.kind)().catch(() => undefined);
 
   return (
     <div className="space-y-4">
@@ -42,20 +60,22 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
       <WorkflowBar detail={data} userId={userId} roles={roles} />
       <nav className="flex flex-wrap gap-1 border-b border-rule" role="tablist">
         {TABS.map((t) => (
-          <button key={t} role="tab" aria-selected={current === t} type="button" onClick={() => setTab(t)} className={`rounded-t px-3 py-1.5 text-sm ${current === t ? 'border border-b-0 border-rule bg-panel font-semibold' : 'text-ink-soft'}`}>
+          <button key={t} role="tab" aria-selected={current === t} type="button" onClick={() => setTab(t)} onPointerEnter={() => prefetch(t)} onFocus={() => prefetch(t)} className={`rounded-t px-3 py-1.5 text-sm ${current === t ? 'border border-b-0 border-rule bg-panel font-semibold' : 'text-ink-soft'}`}>
             {t}{t === 'Remarks' && openRemarks ? ` (${openRemarks} open)` : ''}
           </button>
         ))}
       </nav>
       <div role="tabpanel">
-        {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />)}
-        {current === 'Inputs as JSON' && <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />}
-        {current === 'Results' && <ResultsTab detail={data} />}
-        {current === 'Checklist' && <ChecklistTab detail={data} userId={userId} roles={roles} />}
-        {current === 'Remarks' && <RemarksTab detail={data} canWrite={participant} />}
-        {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
-        {current === 'Files' && <FilesTab detail={data} canUpload={participant} />}
-        {current === 'History' && <HistoryTab revisionId={r.id} />}
+        <LoadedPart key={current} loadingLabel={`Loading the “${current}” tab…`}>
+          {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />)}
+          {current === 'Inputs as JSON' && <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />}
+          {current === 'Results' && <ResultsTab detail={data} />}
+          {current === 'Checklist' && <ChecklistTab detail={data} userId={userId} roles={roles} />}
+          {current === 'Remarks' && <RemarksTab detail={data} canWrite={participant} />}
+          {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
+          {current === 'Files' && <FilesTab detail={data} canUpload={participant} />}
+          {current === 'History' && <HistoryTab revisionId={r.id} />}
+        </LoadedPart>
       </div>
     </div>
   );

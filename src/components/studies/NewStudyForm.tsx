@@ -4,7 +4,7 @@ import { useMutation, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { api } from '../../lib/queries/api-client';
 import { limitSetsQuery } from '../../lib/queries/studies.queries';
-import { newStudySchema } from '../../lib/schemas/revision-actions.schema';
+import { newStudySchema } from '../../lib/schemas/new-study.schema';
 import { defaultBondingInputs, defaultExposureInputs } from '../../lib/studies/default-inputs';
 import { Button, ErrorNote } from '../ui/parts';
 

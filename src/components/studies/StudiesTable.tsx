@@ -1,12 +1,15 @@
-import { useState } from 'react';
+import { lazy, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { studiesQuery, type StudyListParams, type StudyRow } from '../../lib/queries/studies.queries';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, StateBadge, formatDate } from '../ui/parts';
 import { STATE_LABEL } from '../ui/states';
-import NewStudyForm from './NewStudyForm';
+import { LoadedPart } from '../ui/LoadedPart';
 import { formatMarginPct } from '../../lib/format';
+
+// The form (with zod and react-hook-form) is fetched when someone starts a study, not with the list.
+const NewStudyForm = lazy(() => import('./NewStudyForm'));
 
 const column = createColumnHelper<StudyRow>();
 const columns = [
@@ -74,7 +77,11 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
         {isFetching && !isPending && <Busy label="Updating…" />}
         {canCreate && <Button className="ml-auto" onClick={() => setCreating((c) => !c)}>{creating ? 'Close' : 'New study'}</Button>}
       </div>
-      {creating && <NewStudyForm projectId={projectId} />}
+      {creating && (
+        <LoadedPart loadingLabel="Loading the new-study form…">
+          <NewStudyForm projectId={projectId} />
+        </LoadedPart>
+      )}
       {error ? <ErrorNote error={error} /> : isPending ? <Busy label="Loading studies…" /> : data.total === 0 ? (
         <Empty>No study matches. {canCreate ? 'Start one with "New study".' : ''}</Empty>
       ) : (

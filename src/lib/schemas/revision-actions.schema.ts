@@ -2,14 +2,12 @@ import { z } from 'zod';
 import './plain-messages';
 
 // Request bodies of the revision endpoints: one schema each, used by the API and the forms.
-
-export const newStudySchema = z.object({
-  code: z.string().trim().min(1, 'Give the study a code.').max(30),
-  title: z.string().trim().min(3, 'Give the study a title.').max(200),
-  kind: z.enum(['bonding', 'exposure']),
-  limitSetId: z.uuid('Choose a limit set.'),
-  inputs: z.unknown(),
-});
+// The ones a browser form also uses live in their own modules (a shared module lands whole in
+// every page bundle that touches it) and are re-exported here for the server.
+export { newStudySchema } from './new-study.schema';
+export { checkValueSchema, checkValueUpdateSchema } from './check-value.schema';
+export { invitationSchema } from './invitation.schema';
+export { acceptInvitationSchema } from './accept-invitation.schema';
 
 export const updateInputsSchema = z.object({ version: z.number().int().positive(), inputs: z.unknown() });
 
@@ -46,26 +44,6 @@ export const remarkUpdateSchema = z.object({ resolved: z.boolean() });
 export const agreeRemainingSchema = z.object({
   verdict: z.literal('agree', { error: 'Only "agree" can be given to every remaining item.' }),
   count: z.number({ error: 'Confirm the number of items.' }).int().min(1, 'No item is left to agree with.'),
-});
-
-export const checkValueSchema = z.object({
-  itemKey: z.string().min(1, 'Choose the result you checked.'),
-  checkerValue: z.number({ error: 'Enter your value as a number.' }).finite(),
-  explanation: z.string().trim().max(2000).optional(),
-});
-
-/** A correction of the checker's own check value (the item stays the same). */
-export const checkValueUpdateSchema = checkValueSchema.omit({ itemKey: true });
-
-export const invitationSchema = z.object({
-  email: z.email('This is not an e-mail address.').transform((e) => e.toLowerCase()),
-  name: z.string().trim().min(2, 'Give the person\'s name.'),
-  isAdmin: z.boolean().default(false),
-});
-
-export const acceptInvitationSchema = z.object({
-  token: z.string().min(20),
-  password: z.string().min(10, 'Choose a password of at least 10 characters.').max(200),
 });
 
 export const membershipSchema = z.object({
