@@ -99,7 +99,7 @@ export function reportNumber(v: number): string {
   if (v === 0) return '0';
   if (!Number.isFinite(v)) return String(v);
   const a = Math.abs(v);
-  return a >= 1e-3 && a < 1e6 ? String(Number(v.toPrecision(7))) : v.toExponential(4);
+  return a >= 1e-3 && a < 1e6 ? String(Number(v.toPrecision(7))) : Number(v.toPrecision(5)).toExponential();
 }
 
 export const toleranceText = (t: Tolerance): string => (t.kind === 'relative' ? `${reportNumber(t.value)} relative` : `± ${reportNumber(t.value)}`);
