@@ -4,6 +4,7 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import auth from 'auth-astro';
+import { validationGuard } from './scripts/validation-guard.ts';
 
 // The port is baked into the Host allow-list at build time, so the build and the server
 // must agree on it: scripts/ exports SHEATHWISE_PORT before building.
@@ -12,7 +13,7 @@ const port = Number(process.env.SHEATHWISE_PORT ?? 4321);
 export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'standalone' }),
-  integrations: [react(), auth()],
+  integrations: [react(), auth(), validationGuard()],
   server: { host: '127.0.0.1', port },
   security: {
     allowedDomains: [

@@ -8,5 +8,7 @@ export default defineConfig({
     // Browser and HTTP tests share one server and database; files run one after another
     // so a lockout test cannot disturb a sign-in test.
     fileParallelism: false,
+    // The validation reporter writes reports/validation.{json,md} whenever reference values were compared.
+    reporters: ['default', './tests/reporters/validation-reporter.ts'],
   },
 });

@@ -33,6 +33,6 @@ export TEST_SERVER_PID="$SERVER_PID"
 export APP_URL="http://127.0.0.1:$SHEATHWISE_PORT"
 
 cd "$ROOT"
-node_modules/.bin/vitest run --reporter=default --reporter=json --outputFile.json="$TEST_ARTIFACTS/vitest.json" "$@" && status=0 || status=$?
+node_modules/.bin/vitest run --reporter=default --reporter=json --reporter=./tests/reporters/validation-reporter.ts --outputFile.json="$TEST_ARTIFACTS/vitest.json" "$@" && status=0 || status=$?
 node scripts/print-totals.mjs "$TEST_ARTIFACTS/vitest.json" || status=1
 exit "$status"

@@ -12,5 +12,7 @@ export function navigationFor(user: SessionUser): NavItem[] {
   if (roles.some((r) => r !== 'admin')) items.push({ href: '/projects', label: 'Projects' });
   if (roles.includes('auditor')) items.push({ href: '/audit', label: 'Audit trail' });
   if (roles.includes('admin')) items.push({ href: '/admin', label: 'Administration' });
+  // Everyone may read how the figures are computed and how the engine was validated.
+  items.push({ href: '/methods', label: 'Method' });
   return items;
 }

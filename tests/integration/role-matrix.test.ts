@@ -107,6 +107,9 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   { route: 'GET /api/revisions/[revisionId]/history', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/history` }) },
   { route: 'GET /api/revisions/[revisionId]/compare', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/compare?against=previous` }) },
   { route: 'GET /api/admin/projects/[projectId]/document-number', allowed: ['admin'], status: 200, call: (f) => ({ method: 'GET', path: `/api/admin/projects/${f.projectId}/document-number` }) },
+  { route: 'GET /api/admin/record-settings', allowed: ['admin'], status: 200, call: () => ({ method: 'GET', path: '/api/admin/record-settings' }) },
+  // The default (link, not append) again, so records rendered by other tests do not depend on the order of tests.
+  { route: 'PUT /api/admin/record-settings', allowed: ['admin'], status: 200, call: () => ({ method: 'PUT', path: '/api/admin/record-settings', body: { appendValidation: false } }) },
   // The default pattern again, so other tests' file names do not depend on the order of tests.
   { route: 'PUT /api/admin/projects/[projectId]/document-number', allowed: ['admin'], status: 200, call: (f) => ({ method: 'PUT', path: `/api/admin/projects/${f.projectId}/document-number`, body: { pattern: '{project}-{study}-R{revision:2}' } }) },
   { route: 'GET /api/admin/projects/[projectId]/members', allowed: ['admin'], status: 200, call: (f) => ({ method: 'GET', path: `/api/admin/projects/${f.projectId}/members` }) },

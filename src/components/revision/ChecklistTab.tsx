@@ -4,6 +4,7 @@ import type { ChecklistRow } from '../../lib/db/schema';
 import { formatMarginPct, formatQuantity } from '../../lib/format';
 import { Button, Empty, ErrorNote } from '../ui/parts';
 import { useRevisionAction } from './use-revision-action';
+import { criterionSection, methodCitation, sectionHref } from '../../lib/methods/method-reference';
 
 type Mode = 'answer' | 'verdict' | 'justify' | 'read';
 type Save = (body: unknown) => void;
@@ -39,7 +40,7 @@ export default function ChecklistTab({ detail, userId, roles }: { detail: Revisi
               <td className="px-2 py-1 font-mono">{i.limitValue === null ? '—' : formatQuantity(i.limitValue, i.unit)}</td>
               <td className="px-2 py-1 font-mono">{i.marginPct === null ? '—' : formatMarginPct(i.marginPct)}</td>
               <td className={`px-2 py-1 font-semibold ${i.status === 'pass' ? 'text-pass' : i.status === 'fail' ? 'text-fail' : 'text-caution'}`}>{i.status === 'no-limit' ? 'no limit' : i.status.toUpperCase()}</td>
-              <td className="px-2 py-1 text-xs">{i.source}</td>
+              <td className="px-2 py-1 text-xs">{i.source}<MethodLink itemKey={i.itemKey} engineVersion={r.engineVersion} /></td>
               <td className="px-2 py-1"><Review item={i} mode={mode} onSave={save(i.itemKey)} /></td>
             </tr>
           ))}
@@ -150,6 +151,17 @@ function ManualAnswer({ item, onSave }: { item: ChecklistRow; onSave: Save }) {
         </Button>
       ))}
       <input aria-label={`Reason for ${item.itemKey}`} placeholder="reason (needed for n/a)" className="w-40 rounded border border-rule px-1 text-xs" value={reason} onChange={(e) => setReason(e.target.value)} />
+    </div>
+  );
+}
+
+/** Where the method statement says how the item's value is computed. */
+function MethodLink({ itemKey, engineVersion }: { itemKey: string; engineVersion: string | null }) {
+  const section = criterionSection(itemKey);
+  if (!section) return null;
+  return (
+    <div>
+      <a className="underline" href={sectionHref(section)} data-testid="method-link" title={methodCitation(section, engineVersion ?? undefined)}>method, section {section}</a>
     </div>
   );
 }

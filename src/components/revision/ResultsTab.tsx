@@ -5,6 +5,7 @@ import type { ExposureResults } from '../../lib/calc/exposure/solve-exposure';
 import { formatQuantity } from '../../lib/format';
 import { quantityLabel } from '../../lib/compare/labels';
 import { Caution, Empty } from '../ui/parts';
+import { METHODS_PATH, methodEngineLabel, sectionHref } from '../../lib/methods/method-reference';
 import type { Measurement } from './RouteProfileChart';
 import RouteProfilePlot from './RouteProfilePlot';
 import PhasorDiagram from './PhasorDiagram';
@@ -19,7 +20,11 @@ export default function ResultsTab({ detail, measurements }: { detail: RevisionD
     <div className="space-y-4">
       <Caution />
       {stale && <p role="alert" className="rounded border border-fail bg-fail/10 px-3 py-2 text-sm text-fail">The inputs changed after this calculation: calculate again before submitting.</p>}
-      <p className="text-xs text-ink-soft">Engine {detail.revision.engineVersion}; inputs hash {detail.revision.inputsHash.slice(0, 16)}…</p>
+      <p className="text-xs text-ink-soft">
+        Engine {detail.revision.engineVersion}; inputs hash {detail.revision.inputsHash.slice(0, 16)}…;{' '}
+        <a className="underline" href={METHODS_PATH} data-testid="method-statement-link">method statement, engine {methodEngineLabel(detail.revision.engineVersion ?? undefined)}</a>,{' '}
+        <a className="underline" href={`${METHODS_PATH}#validation`}>its validation</a>
+      </p>
       {results.kind === 'bonding' ? <BondingResultsView results={results} detail={detail} measurements={measurements} /> : <ExposureResultsView results={results} />}
     </div>
   );
@@ -68,7 +73,7 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
       </section>
       {results.crossChecks.length > 0 && (
         <section>
-          <h3 className="mb-2 font-semibold">Closed-form cross-check beside the network solution</h3>
+          <h3 className="mb-2 font-semibold">Closed-form cross-check beside the network solution <a className="text-xs font-normal underline" href={sectionHref('7')}>(method, section 7)</a></h3>
           <table className="w-full text-sm" data-testid="cross-checks">
             <thead className="bg-copper-light text-left"><tr><th className="px-2 py-1">Quantity</th><th className="px-2 py-1">Case</th><th className="px-2 py-1">Closed form</th><th className="px-2 py-1">Network</th><th className="px-2 py-1">Difference</th></tr></thead>
             <tbody>{results.crossChecks.map((x) => <tr key={x.description + x.caseId} className="border-t border-rule"><td className="px-2 py-1">{x.description}</td><td className="px-2 py-1">{x.caseId}</td><td className="px-2 py-1 font-mono">{formatQuantity(x.closedForm, x.unit)}</td><td className="px-2 py-1 font-mono">{formatQuantity(x.network, x.unit)}</td><td className="px-2 py-1 font-mono">{x.differencePct.toExponential(1)} %</td></tr>)}</tbody>

@@ -47,6 +47,7 @@ const STEP_WORDS: Record<string, string> = {
   'user.locked': 'A sign-in was locked after repeated failures',
   'user.unlocked': 'unlocked a sign-in',
   'project.document-number-pattern-set': 'set the document-number pattern of a project',
+  'record-settings.set': 'changed how records show the engine\'s validation',
 };
 
 /** Events told without a person ("The issued record … was stored"). */
@@ -90,6 +91,11 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   if (type === 'record.retried') return `the earlier failure was “${str(d.previousError)}”`;
   if (type === 'file.uploaded') return [str(d.fileName), str(d.sha256) && `SHA-256 ${str(d.sha256).slice(0, 16)}…`].filter(Boolean).join(', ');
   if (type === 'project.document-number-pattern-set') return `${str(d.from)} → ${str(d.to)}`;
+  if (type === 'record-settings.set' && d.appendValidation && typeof d.appendValidation === 'object') {
+    const told = (v: unknown) => (v ? 'the full table appended' : 'the summary with a link');
+    const { from, to } = d.appendValidation as { from?: unknown; to?: unknown };
+    return `${told(from)} → ${told(to)}`;
+  }
   if (type === 'revision.supersede' && d.supersededBy !== undefined) return `by revision ${str(d.supersededBy)}`;
   // The code is already in the sentence ("created study B10"); the title follows.
   if (type === 'study.created') return str(d.title);

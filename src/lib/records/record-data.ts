@@ -12,9 +12,11 @@ import { documentNumber } from '../admin/document-number';
 import { compareRevisions } from '../compare/compare.service';
 import { xmlSafe } from './xml-safe-text';
 import { signOffStanding } from '../workflow/sign-off';
+import { committedValidationFile, type RecordValidation } from './record-validation';
+import { recordSettingsOf } from '../admin/record-settings.service';
 
 /** Everything a record shows, gathered from the database (and the object store for commissioning readings). */
-export async function gatherRecordData(db: Database, revisionId: string, store?: ObjectStore | null) {
+export async function gatherRecordData(db: Database, revisionId: string, store?: ObjectStore | null, appUrl?: string) {
   const detail = await revisionDetail(db, revisionId);
   const { revision, study, project } = detail;
   const [limitSet] = revision.limitSetVersionId
@@ -67,6 +69,12 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
     workflowEvents: events.map((e) => ({ at: e.at, revision: numberOf.get(e.revisionId!) ?? 0, type: e.type, actor: e.actorId ? (people.get(e.actorId) ?? '') : 'Sheathwise', reason: typeof (e.detail as { reason?: unknown }).reason === 'string' ? ((e.detail as { reason: string }).reason) : null })),
     files: files.map((f) => ({ fileName: f.fileName, kind: f.kind, sizeBytes: f.sizeBytes, sha256: f.sha256, uploadedBy: people.get(f.uploadedBy) ?? '', createdAt: f.createdAt })),
     commissioning: await commissioning(store, files, inputs, results),
+    validation: {
+      engineVersion: revision.engineVersion,
+      report: committedValidationFile(revision.engineVersion),
+      append: (await recordSettingsOf(db)).appendValidation,
+      appUrl: appUrl ?? null,
+    } satisfies RecordValidation,
     changes: changes.from ? { fromNumber: changes.from.number, inputChanges: changes.inputChanges, worstChanges: changes.worstChanges.map((w) => w.text), verdictChanges: changes.verdictChanges.map((v) => v.text) } : null,
   });
 }

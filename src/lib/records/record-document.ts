@@ -12,6 +12,8 @@ import { resultBlocks } from './record-results';
 import { routePlotSvg, svgToPng } from './route-plot';
 import { assumptions } from './record-assumptions';
 import { eventSentence } from './event-sentences';
+import { validationBlocks } from './record-validation';
+import { criterionSection } from '../methods/method-reference';
 
 const ROLE_WORD = { designer: 'Designed', checker: 'Checked', approver: 'Approved' } as const;
 
@@ -54,6 +56,7 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
     body(text.scope),
     heading(text.methodHeading),
     ...text.method.map((m) => body(m)),
+    ...validationBlocks(data.validation),
     heading(text.assumptionsHeading),
     ...assumptions(data.inputs).map((a) => body(`• ${a}`)),
     heading(text.inputsHeading),
@@ -67,8 +70,8 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
     ...(computed.length
       ? [
           textTable(
-            ['check', 'case', 'where', 'value', 'limit', 'margin', 'verdict', 'source of the limit'],
-            computed.map((i) => [i.title, i.caseId ?? '—', i.location ?? '—', i.value === null ? '—' : formatQuantity(i.value, i.unit), i.limitValue === null ? '—' : formatQuantity(i.limitValue, i.unit), i.marginPct === null ? '—' : formatMarginPct(i.marginPct), verdict(i.status, i.justification), i.source]),
+            ['check', 'case', 'where', 'value', 'limit', 'margin', 'verdict', 'source of the limit', 'method section'],
+            computed.map((i) => [i.title, i.caseId ?? '—', i.location ?? '—', i.value === null ? '—' : formatQuantity(i.value, i.unit), i.limitValue === null ? '—' : formatQuantity(i.limitValue, i.unit), i.marginPct === null ? '—' : formatMarginPct(i.marginPct), verdict(i.status, i.justification), i.source, criterionSection(i.itemKey) ?? '—']),
           ),
         ]
       : [body('No computed checks.', { italic: true })]),

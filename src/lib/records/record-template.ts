@@ -12,6 +12,10 @@ export interface RecordText {
   scope: string;
   methodHeading: string;
   method: string[];
+  methodStatement: string;
+  validationLinked: string;
+  validationAppended: string;
+  noValidation: string;
   inputsHeading: string;
   resultsHeading: string;
   plotHeading: string;

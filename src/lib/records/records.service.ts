@@ -32,8 +32,8 @@ const ISSUED = ['issued', 'superseded'] as const;
 const isIssued = (state: string) => (ISSUED as readonly string[]).includes(state);
 
 /** A record rendered now from the revision as it stands, marked as a draft unless issued. */
-export async function renderCurrentRecord(db: Database, revisionId: string, store?: ObjectStore | null): Promise<Buffer> {
-  return renderRecord(await gatherRecordData(db, revisionId, store));
+export async function renderCurrentRecord(db: Database, revisionId: string, store?: ObjectStore | null, appUrl?: string): Promise<Buffer> {
+  return renderRecord(await gatherRecordData(db, revisionId, store, appUrl));
 }
 
 /**
@@ -51,7 +51,7 @@ export async function storeIssuedRecord(s: Pick<AppServices, 'db' | 'pool'> & Pa
   if (stored) return;
   let document: Buffer;
   try {
-    document = await renderCurrentRecord(s.db, revisionId, s.store);
+    document = await renderCurrentRecord(s.db, revisionId, s.store, s.appUrl);
   } catch (err) {
     if (databaseAppError(err)?.errorName === 'Unavailable') throw err;
     const error = (err as Error).message?.slice(0, 1000) || String(err);
@@ -113,7 +113,7 @@ export type RecordDownload =
   | { kind: 'failed'; error: string };
 
 /** The issued record's stored bytes, a fresh draft, or word that the issued record is still being rendered or failed. */
-export async function recordForDownload(db: Database, revisionId: string, store?: ObjectStore | null): Promise<RecordDownload> {
+export async function recordForDownload(db: Database, revisionId: string, store?: ObjectStore | null, appUrl?: string): Promise<RecordDownload> {
   const scope = await loadRevisionScope(db, revisionId);
   const { revision } = scope;
   if (isIssued(revision.state)) {
@@ -126,7 +126,7 @@ export async function recordForDownload(db: Database, revisionId: string, store?
     const [failure] = await db.select().from(recordFailures).where(eq(recordFailures.revisionId, revisionId));
     return failure ? { kind: 'failed', error: failure.error } : { kind: 'rendering' };
   }
-  const document = await renderCurrentRecord(db, revisionId, store);
+  const document = await renderCurrentRecord(db, revisionId, store, appUrl);
   // Named by its document number, so the file and the number on its pages agree.
   return { kind: 'document', document, sha256: sha256Hex(document), draft: true, fileName: `${await recordDocumentNumber(db, scope)}-DRAFT.docx` };
 }

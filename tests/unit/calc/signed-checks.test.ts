@@ -5,6 +5,7 @@ import { calculateBondingStudy } from '../../../src/lib/calc/bonding/solve-bondi
 import { evaluateBondingCompliance } from '../../../src/lib/calc/compliance';
 import { adiabaticCrossSectionMm2, adiabaticCurrentA } from '../../../src/lib/calc/adiabatic';
 import { referenceStudy, relativeError, sections } from '../../helpers/reference-study';
+import { decimals, referenceValues } from '../../helpers/validation';
 
 // Issue 10 §5: the checks an engineer signs for, and the hand-check quantities, each against a
 // value worked by hand in the comment beside it.
@@ -23,10 +24,11 @@ describe('hand-check quantities', () => {
     expect(m.conductors).toHaveLength(6);
   });
 
-  it('induced EMF per kA: 49.540 V/km in trefoil at s = 0.110 m (methods.md SV-1, trefoil closed form)', () => {
+  it('induced EMF per kA: 49.540 V/km in trefoil at s = 0.110 m (methods.md SV-1, trefoil closed form)', ({ task }) => {
+    const check = referenceValues(task, 'SV-1', 'docs/methods.md §4.1; derived: trefoil closed form');
     const hc = calculateBondingStudy(referenceStudy()).cases[0].handCheck;
     expect(hc.referenceCurrentA).toBe(1000);
-    hc.emfVPerKmPerKA.forEach((e) => expect(e.value).toBeCloseTo(49.54, 2));
+    hc.emfVPerKmPerKA.forEach((e) => check(`hand-check EMF per kA, ${e.cable} (results)`, e.value, 49.54, 'V/km', decimals(2)));
   });
 
   it('sheath current per kA, solid bonding in trefoil: 1000·X/√(Rs² + X²) = 443.91 A/kA within 0.1 % (IEC 60287-1-1 §2.3.1)', () => {

@@ -10,6 +10,7 @@ import { xmlSafe } from '../../../src/lib/records/xml-safe-text';
 import { formatQuantity } from '../../../src/lib/format';
 import { crossBondedRoute } from '../../../bench/reference-routes';
 import { hasCell, readDocx } from '../../helpers/docx-text';
+import { committedValidationFile } from '../../../src/lib/records/record-validation';
 
 const limits = limitSetSchema.parse(JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')));
 
@@ -34,6 +35,7 @@ function recordData(study: ReturnType<typeof crossBondedRoute>, draft: boolean):
     workflowEvents: [],
     files: [],
     commissioning: [],
+    validation: { engineVersion: results.engineVersion, report: committedValidationFile(results.engineVersion), append: false, appUrl: 'http://127.0.0.1:4321' },
     changes: null,
   };
 }
@@ -107,5 +109,26 @@ describe('record rendering', () => {
     expect(manualText.split('\u0001').slice(1, 4)).toEqual(['question', 'answer', 'basis']);
     expect(manualText.split('\u0001').filter((t) => t === 'yes')).toHaveLength(1);
   });
-});
 
+  it('states the method statement, its section for each check, and the validation of the engine: linked by default, appended when the administrator chose so', async () => {
+    const study = crossBondedRoute({ circuits: 1, majorSections: 1, withEcc: false });
+    const data = recordData(study, false);
+    const report = data.validation.report!;
+    expect(report.engineVersion).toBe(data.revision.engineVersion);
+    const summary = `Validation of engine ${report.engineVersion}: ${report.within} of ${report.total} reference values within tolerance`;
+    const linked = readDocx(await renderRecord(data)).bodyText;
+    expect(linked).toContain(`Method: Sheathwise method statement, engine ${report.engineVersion.split('.')[0]}.x`);
+    expect(linked).toContain(`${summary}, in the run of ${report.generatedAt}. The table of every reference value, with its source, the engine's value and the tolerance, is at http://127.0.0.1:4321/methods#validation.`);
+    // The standing-voltage checks cite section 2.3 (what the voltage is measured against).
+    expect(hasCell(linked, 'method section')).toBe(true);
+    expect(hasCell(linked, '2.3')).toBe(true);
+    expect(hasCell(linked, 'SV-1')).toBe(false);
+
+    const appended = readDocx(await renderRecord({ ...data, validation: { ...data.validation, append: true } })).bodyText;
+    expect(appended).toContain('The table of every reference value follows');
+    for (const id of report.ids) expect(hasCell(appended, id)).toBe(true);
+
+    const unknown = readDocx(await renderRecord({ ...data, validation: { ...data.validation, engineVersion: '1.4.0', report: committedValidationFile('1.4.0') } })).bodyText;
+    expect(unknown).toContain('No validation report is held for engine 1.4.0.');
+  });
+});

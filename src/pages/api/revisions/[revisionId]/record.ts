@@ -7,9 +7,9 @@ import { AppError } from '../../../../lib/errors';
 import { DOCX_TYPE, recordForDownload, retryIssuedRecord } from '../../../../lib/records/records.service';
 
 export const GET = endpoint(async ({ locals, params }) => {
-  const { db, store } = await services();
+  const { db, store, appUrl } = await services();
   authorize(locals.user, { anyRole: READERS, projectId: await projectOfRevision(db, params.revisionId!) });
-  const record = await recordForDownload(db, params.revisionId!, store);
+  const record = await recordForDownload(db, params.revisionId!, store, appUrl);
   if (record.kind === 'rendering') {
     return Response.json({ status: 'rendering', message: 'The issued record is being rendered; try again in a few seconds.' }, { status: 202, headers: { 'retry-after': '2' } });
   }
