@@ -58,4 +58,6 @@ export const plainMessage: z.core.$ZodErrorMap = (iss) => {
   }
 };
 
-z.config({ customError: plainMessage });
+// In the browser, also skip zod's `new Function` probe, which the CSP (no 'unsafe-eval') refuses
+// with a policy report; every island that parses imports a schema module, and so this one.
+z.config({ customError: plainMessage, ...(typeof document === 'undefined' ? {} : { jitless: true }) });
