@@ -5,6 +5,8 @@ import RecordObligationForm from './RecordObligationForm';
 import StudyLinkForm from './StudyLinkForm';
 import SystemDataForm from './SystemDataForm';
 
+const withUnit = (v: number | null, unit: string) => (v === null ? '—' : `${v} ${unit}`);
+
 const interval = (months: number | null) => (months === null ? 'once' : months % 12 === 0 ? `every ${months / 12} year${months === 12 ? '' : 's'}` : `every ${months} months`);
 
 /** One asset: the studies covering it, what it owes and when, its records with evidence, and (sites) its system data. */
@@ -100,10 +102,10 @@ export default function AssetPanel({ assetId, roles, onClose }: { assetId: strin
                 {data.systemData.map((v) => (
                   <tr key={v.id} className="border-t border-rule">
                     <td className={td}>{v.version}</td>
-                    <td className={td}>{v.data.earthFaultKa ?? '—'} kA</td>
-                    <td className={td}>{v.data.threePhaseFaultKa ?? '—'} kA</td>
-                    <td className={td}>{v.data.clearanceTimeS ?? '—'} s</td>
-                    <td className={td}>{v.data.gridResistanceOhm ?? '—'} Ω</td>
+                    <td className={td}>{withUnit(v.data.earthFaultKa, 'kA')}</td>
+                    <td className={td}>{withUnit(v.data.threePhaseFaultKa, 'kA')}</td>
+                    <td className={td}>{withUnit(v.data.clearanceTimeS, 's')}</td>
+                    <td className={td}>{withUnit(v.data.gridResistanceOhm, 'Ω')}</td>
                     <td className={td}>{v.data.maxLoads.length ? `${v.data.maxLoads.length} circuit(s)` : '—'}</td>
                     <td className={td}>{v.source} ({v.sourceDate})</td>
                   </tr>
