@@ -77,6 +77,9 @@ describe('re-validation on publishing site system data', () => {
     expect((await send(sessions.approver, 'POST', `/api/studies/${studies.A.studyId}/reviews`)).status).toBe(403);
     const started = await json(await send(sessions.designer, 'POST', `/api/studies/${studies.A.studyId}/reviews`), 201);
     const revisionId = started.revision.id;
+    // A later visit picks up the revision being edited instead of offering to start another.
+    expect((await json(await sessions.designer.fetch(`/api/studies/${studies.A.studyId}/reviews`), 200)).editing.id).toBe(revisionId);
+    expect(state.editing).toBeNull();
     const refused = await json(await send(sessions.designer, 'POST', `/api/studies/${studies.A.studyId}/reviews/apply`, { revisionId, version: started.revision.version, accept: ['cases.1.durationS'] }), 422);
     expect(refused.fields[0].field).toBe('accept.0');
     await json(await send(sessions.designer, 'POST', `/api/studies/${studies.A.studyId}/reviews/apply`, { revisionId, version: started.revision.version, accept: ['cases.3.earthFault.currentA', 'earthing.routeEndOhm'] }), 200);

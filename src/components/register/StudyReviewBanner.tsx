@@ -13,7 +13,9 @@ import { Button, Caution, ErrorNote } from '../ui/parts';
 function StudyReviewBanner({ studyId, isDesigner }: { studyId: string; isDesigner: boolean }) {
   const client = useQueryClient();
   const { data, error } = useQuery(studyReviewsQuery(studyId));
-  const [started, setStarted] = useState<{ revision: { id: string; number: number; version: number }; proposals: ReviewProposal[] } | null>(null);
+  const [begun, setStarted] = useState<{ revision: { id: string; number: number; version: number }; proposals: ReviewProposal[] } | null>(null);
+  // A revision started earlier (another visit) is picked up where it was left.
+  const started = begun ?? (data?.editing ? { revision: data.editing, proposals: data.proposals } : null);
   const [confirmed, setConfirmed] = useState<Set<string>>(new Set());
   const start = useMutation({
     mutationFn: () => api<NonNullable<typeof started>>(`/api/studies/${studyId}/reviews`, { method: 'POST' }),
@@ -43,7 +45,7 @@ function StudyReviewBanner({ studyId, isDesigner }: { studyId: string; isDesigne
       {start.error && <ErrorNote error={start.error} />}
       {started && (
         <div className="space-y-2 text-sm">
-          <p>Revision {started.revision.number} is started as a copy. Confirm each new value to write it into the revision's inputs; leave the others for later.</p>
+          <p>Revision {started.revision.number} is open for changes. Confirm each new value to write it into the revision's inputs; leave the others for later.</p>
           <ul className="space-y-1">
             {started.proposals.map((p) => (
               <li key={p.path}>

@@ -54,7 +54,7 @@ export interface ReviewProposal {
 export const studyReviewsQuery = (studyId: string) =>
   queryOptions({
     queryKey: ['register', 'reviews', studyId],
-    queryFn: () => api<{ reviews: Array<{ id: string; revisionNumber: number; siteCode: string; version: number; source: string; sourceDate: string; reasons: ReviewProposal[] }>; proposals: ReviewProposal[] }>(`/api/studies/${studyId}/reviews`),
+    queryFn: () => api<{ reviews: Array<{ id: string; revisionNumber: number; siteCode: string; version: number; source: string; sourceDate: string; reasons: ReviewProposal[] }>; proposals: ReviewProposal[]; editing: { id: string; number: number; version: number } | null }>(`/api/studies/${studyId}/reviews`),
   });
 
 export const projectStudiesQuery = (projectId: string) =>
@@ -65,3 +65,18 @@ export const projectStudiesQuery = (projectId: string) =>
 
 export const projectAssetsQuery = (projectId: string) =>
   queryOptions({ queryKey: ['register', 'assets', projectId], queryFn: () => api<{ assets: Array<{ id: string; code: string; kind: string; name: string }> }>(`/api/projects/${projectId}/assets`) });
+
+export interface ObligationTypeRow {
+  id: string;
+  ownerStandard: string;
+  name: string;
+  appliesTo: string;
+  firstDueMonths: number;
+  intervalMonths: number | null;
+  criterion: { quantity: string; unit: string; comparison: string; limit: number } | null;
+  remindDaysBefore: number;
+  basis: string;
+}
+
+export const obligationTypesQuery = () =>
+  queryOptions({ queryKey: ['register', 'obligation-types'], queryFn: () => api<{ obligationTypes: ObligationTypeRow[] }>('/api/admin/obligation-types') });

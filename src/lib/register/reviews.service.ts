@@ -9,6 +9,7 @@ import { assertId, loadRevisionScope, loadStudyScope } from '../db/revisions.rep
 import { startNewRevision, updateInputs } from '../studies/studies.service';
 import type { applyProposalsSchema } from '../schemas/register.schema';
 import { applyReasons, valueAt } from './revalidation';
+import { editableStates } from '../workflow/revision.machine';
 
 /**
  * The open reviews of a study: those whose flagged revision is still the issued one (issuing a
@@ -32,11 +33,16 @@ export function proposalsOf(reviews: Array<{ reasons: ReviewReason[] }>): Review
   return [...byPath.values()];
 }
 
-/** What the study screen shows: the open reviews and the values a new revision would take. */
+/**
+ * What the study screen shows: the open reviews, the values a new revision would take, and the
+ * revision being edited after the issued one, if any (so the designer picks up where they left).
+ */
 export async function studyReviewState(db: Database, studyId: string) {
   await loadStudyScope(db, studyId);
   const reviews = await openReviews(db, studyId);
-  return { reviews, proposals: proposalsOf(reviews) };
+  const [latest] = await db.select({ id: revisions.id, number: revisions.number, version: revisions.version, state: revisions.state }).from(revisions).where(eq(revisions.studyId, studyId)).orderBy(desc(revisions.number)).limit(1);
+  const editing = reviews.length && latest && editableStates.has(latest.state) && latest.number > reviews[0].revisionNumber ? latest : null;
+  return { reviews, proposals: proposalsOf(reviews), editing };
 }
 
 /** Starts the next revision of a study under review; its new values are then confirmed one by one. */
