@@ -20,6 +20,7 @@ import { demoCableTypes } from './demo-cable-types';
 import { addCableType } from '../src/lib/admin/cable-types.service';
 import { cableTypeSchema } from '../src/lib/schemas/bonding-study.schema';
 import { storeIssuedRecord } from '../src/lib/records/records.service';
+import { seedRegister } from './seed-register';
 
 export const DEMO_PASSWORD = 'sheathwise-demo';
 
@@ -106,5 +107,8 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
 
   // Still being drafted.
   await createStudy(s, designer, project.id, { code: 'B03', title: 'Fernhollow substation entry (drafting)', kind: 'bonding', limitSetId: limitSet.id, inputs: fixture('kestrel-single-point-ecc') });
+
+  // The compliance register of the demo (invented assets, obligations and network data).
+  await seedRegister(s, { designer, approver, admin }, project.id, (await revisionDetail(db, main2)).study.id);
   return true;
 }

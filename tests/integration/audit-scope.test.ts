@@ -8,7 +8,7 @@ import { type DemoRole, demoIds, demoSessions, json } from '../helpers/workflow-
 import { makeOutsider, type Outsider } from './outsider.fixture';
 
 // The audit trail is scoped by project: a reader sees the events of the projects they are a
-// member of, plus the shared limit-set and cable-type events; administrators see everything.
+// member of, plus the shared limit-set, cable-type and obligation-type events; administrators see everything.
 // Verification still walks the whole chain, which runs across projects.
 
 interface Row {
@@ -24,7 +24,7 @@ describe('audit trail scoped by project', () => {
   let outsider: Outsider;
   let demoProjectId: string;
 
-  const shared = or(like(auditEvents.type, 'limit-set.%'), like(auditEvents.type, 'cable-type.%'));
+  const shared = or(like(auditEvents.type, 'limit-set.%'), like(auditEvents.type, 'cable-type.%'), like(auditEvents.type, 'obligation-type.%'));
   /** What a member of these projects should see, counted straight from the table. */
   const expectedCount = async (projectIds: string[]) =>
     (await db.select({ n: sql<number>`count(*)::int` }).from(auditEvents).where(or(inArray(auditEvents.projectId, projectIds), and(isNull(auditEvents.projectId), shared))))[0].n;
@@ -53,7 +53,7 @@ describe('audit trail scoped by project', () => {
     const { total, events, want } = await settled(() => allEvents(outsider.session), () => expectedCount([outsider.projectId]));
     expect(total).toBe(want);
     expect(events.some((e) => e.projectId === outsider.projectId && e.type === 'study.created')).toBe(true);
-    for (const e of events) expect(e.projectId === outsider.projectId || (e.projectId === null && /^(limit-set|cable-type)\./.test(e.type)), JSON.stringify(e)).toBe(true);
+    for (const e of events) expect(e.projectId === outsider.projectId || (e.projectId === null && /^(limit-set|cable-type|obligation-type)\./.test(e.type)), JSON.stringify(e)).toBe(true);
 
     // Asking for the demo project by name, or for one of its revisions, finds nothing.
     expect((await json(await outsider.session.fetch(`/api/audit?projectId=${demoProjectId}`), 200)).total).toBe(0);

@@ -38,6 +38,10 @@ interface Fixture {
   userId: string;
   fileId: string;
   measurementsId: string;
+  circuitAssetId: string;
+  siteAssetId: string;
+  obligationTypeId: string;
+  evidenceRecordId: string;
 }
 
 type Call = (f: Fixture, role: Role) => { method: string; path: string; body?: unknown };
@@ -124,6 +128,35 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
     status: 201,
     call: (f) => ({ method: 'POST', path: `/api/admin/limit-sets/${f.limitSetId}/versions`, body: { limits: JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')).limits, manualItems: [{ key: 'link-boxes', text: 'Link boxes are lockable and labelled.', basis: 'common practice' }], checkTolerancePct: 2 } }),
   },
+  { route: 'GET /api/projects/[projectId]/assets', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/projects/${f.projectId}/assets` }) },
+  { route: 'POST /api/projects/[projectId]/assets', allowed: ['designer', 'approver'], status: 201, call: (f, role) => ({ method: 'POST', path: `/api/projects/${f.projectId}/assets`, body: { kind: 'circuit', code: `MX-${role}-${Date.now() % 1000000}`, name: 'Matrix circuit (invented)', ownerStandard: 'Matrix standard (invented)' } }) },
+  { route: 'GET /api/projects/[projectId]/register', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/projects/${f.projectId}/register?sort=status` }) },
+  { route: 'GET /api/projects/[projectId]/register/export', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/projects/${f.projectId}/register/export` }) },
+  // Across the person's own projects: an outsider sees theirs only.
+  { route: 'GET /api/register', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/register?pageSize=5' }) },
+  { route: 'GET /api/register/export', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/register/export' }) },
+  { route: 'GET /api/register/history', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/register/history' }) },
+  { route: 'POST /api/register/reminders', allowed: ['admin'], status: 200, call: () => ({ method: 'POST', path: '/api/register/reminders' }) },
+  { route: 'GET /api/assets/[assetId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/assets/${f.circuitAssetId}` }) },
+  { route: 'POST /api/assets/[assetId]/studies', allowed: ['designer', 'approver'], status: 201, call: (f) => ({ method: 'POST', path: `/api/assets/${f.circuitAssetId}/studies`, body: { studyId: f.issuedStudyId, studyCircuitId: 'C1' } }) },
+  {
+    route: 'POST /api/assets/[assetId]/records',
+    allowed: PARTICIPANTS,
+    status: 201,
+    call: (f, role) => {
+      const form = new FormData();
+      for (const [k, v] of Object.entries({ obligationTypeId: f.obligationTypeId, doneOn: '2026-01-15', performedBy: `Matrix ${role}`, remarks: 'Matrix record.' })) form.set(k, v);
+      return { method: 'POST', path: `/api/assets/${f.circuitAssetId}/records`, body: form };
+    },
+  },
+  { route: 'GET /api/assets/[assetId]/records/[recordId]/evidence', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/assets/${f.circuitAssetId}/records/${f.evidenceRecordId}/evidence` }) },
+  { route: 'POST /api/assets/[assetId]/system-data', allowed: ['approver'], status: 201, call: (f) => ({ method: 'POST', path: `/api/assets/${f.siteAssetId}/system-data`, body: { earthFaultKa: 1, source: 'Matrix (invented)', sourceDate: '2026-01-01' } }) },
+  { route: 'GET /api/admin/obligation-types', allowed: ['admin'], status: 200, call: () => ({ method: 'GET', path: '/api/admin/obligation-types' }) },
+  { route: 'POST /api/admin/obligation-types', allowed: ['admin'], status: 201, call: (_f, role) => ({ method: 'POST', path: '/api/admin/obligation-types', body: { ownerStandard: 'Matrix standard (invented)', name: `Matrix check ${role} ${Date.now()}`, appliesTo: 'site', firstDueMonths: 0, intervalMonths: 12, basis: 'Invented for the matrix' } }) },
+  { route: 'GET /api/studies/[studyId]/reviews', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/studies/${f.issuedStudyId}/reviews` }) },
+  // No published system data puts the matrix's issued study under review: the designer is let through and told so.
+  { route: 'POST /api/studies/[studyId]/reviews', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/reviews` }) },
+  { route: 'POST /api/studies/[studyId]/reviews/apply', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/reviews/apply`, body: { revisionId: f.draft, version: 1, accept: ['earthing.routeEndOhm'] } }) },
 ];
 
 // Public by design: no session needed. Checked by their own tests.
@@ -158,7 +191,15 @@ describe('role × endpoint matrix', () => {
     const me = await json(await sessions.designer.fetch('/api/me'), 200);
     const file = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('data-sheet', 'svl.pdf', '%PDF-1.4\n% matrix\n')), 201);
     const measurements = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('measurements', 'readings.csv', 'joint,cable,measured_v,load_a\n1,C1-a,12.0,500\n')), 201);
-    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
+    const standard = `Matrix standard ${Date.now()} (invented)`;
+    const obligationType = await json(await send(sessions.admin, 'POST', '/api/admin/obligation-types', { ownerStandard: standard, name: 'Matrix inspection', appliesTo: 'circuit', firstDueMonths: 0, intervalMonths: 12, basis: 'Invented for the matrix' }), 201);
+    const circuit = await json(await send(sessions.designer, 'POST', `/api/projects/${projectId}/assets`, { kind: 'circuit', code: `MXC-${Date.now() % 1000000}`, name: 'Matrix circuit (invented)', ownerStandard: standard, inServiceOn: '2025-01-01' }), 201);
+    const site = await json(await send(sessions.designer, 'POST', `/api/projects/${projectId}/assets`, { kind: 'site', siteKind: 'substation', code: `MXS-${Date.now() % 1000000}`, name: 'Matrix site (invented)', ownerStandard: standard }), 201);
+    const evidenceForm = uploadForm('other', 'inspection.csv', 'item,state\nbox,locked\n');
+    evidenceForm.delete('kind');
+    for (const [k, v] of Object.entries({ obligationTypeId: obligationType.id, doneOn: '2025-06-01', performedBy: 'Matrix contractor (invented)' })) evidenceForm.set(k, v);
+    const evidenceRecord = await json(await send(sessions.designer, 'POST', `/api/assets/${circuit.id}/records`, evidenceForm), 201);
+    f = { circuitAssetId: circuit.id, siteAssetId: site.id, obligationTypeId: obligationType.id, evidenceRecordId: evidenceRecord.id, projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
   });
 
   for (const entry of matrix) {

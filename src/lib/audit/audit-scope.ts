@@ -6,14 +6,15 @@ import { authorize } from '../server/authorize';
 /**
  * Which events a reader of the audit trail may see. Administrators see every event. Anyone else
  * sees the events of the projects they are a member of (any role), plus organisation-wide
- * events about the shared reference data every project uses (limit sets, cable types); account
+ * events about the shared reference data every project uses (limit sets, cable types, obligation
+ * types); account
  * events (invitations, joins, locks) name people outside the reader's projects, so they stay
  * with administrators.
  */
 export type AuditScope = { all: true } | { all: false; projectIds: string[] };
 
 /** Project-less event types that every auditor may read (the prefix before the dot). */
-const SHARED_TYPE_PREFIXES = ['limit-set.', 'cable-type.'];
+const SHARED_TYPE_PREFIXES = ['limit-set.', 'cable-type.', 'obligation-type.'];
 
 /** Authorises a reader of the audit trail (an auditor in some project, or an administrator) and returns their scope. */
 export function auditScopeFor(user: SessionUser | null | undefined): AuditScope {

@@ -33,6 +33,19 @@ export class JobQueue {
     for (const payload of payloads) await this.boss.send(queue, payload, { ...this.retry, ...options, db: tx as PgBoss.Db });
   }
 
+  /**
+   * A job sent on a cron schedule (UTC). pg-boss keeps schedules in the database and sends
+   * each scheduled job once, whichever of several processes notices the time first.
+   */
+  async schedule(queue: string, cron: string, payload: object = {}): Promise<void> {
+    await this.boss.schedule(queue, cron, payload, { ...this.retry, tz: 'UTC' });
+  }
+
+  /** A job outside any transaction (a catch-up run at start). */
+  async sendNow(queue: string, payload: object = {}, options: { singletonKey?: string } = {}): Promise<void> {
+    await this.boss.send(queue, payload, { ...this.retry, ...options });
+  }
+
   /** Runs `handle` for each job of a queue; a handler that throws leaves the job to be retried. */
   async work<T extends object>(queue: string, handle: (jobId: string, data: T) => Promise<void>, pollingIntervalSeconds = 1): Promise<void> {
     await this.boss.work<T>(queue, { pollingIntervalSeconds, batchSize: 5 }, async (jobs) => {

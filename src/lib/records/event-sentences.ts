@@ -48,6 +48,12 @@ const STEP_WORDS: Record<string, string> = {
   'user.unlocked': 'unlocked a sign-in',
   'project.document-number-pattern-set': 'set the document-number pattern of a project',
   'record-settings.set': 'changed how records show the engine\'s validation',
+  'asset.created': 'added an asset to the register',
+  'asset.study-linked': 'recorded that a study covers an asset',
+  'obligation-type.added': 'added an obligation type to an owner standard',
+  'obligation.recorded': 'recorded an obligation done on an asset',
+  'system-data.published': 'published a version of a site\'s system data',
+  'study.needs-review': 'marked {rev} as needing review after new system data',
 };
 
 /** Events told without a person ("The issued record … was stored"). */
@@ -105,6 +111,12 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
     const [from, to] = [d.from, d.to] as Array<{ checkerValue?: unknown }>;
     return `${str(d.itemKey) && itemKeyLabel(str(d.itemKey))}: ${typeof from.checkerValue === 'number' ? formatNumber(from.checkerValue) : '—'} → ${typeof to.checkerValue === 'number' ? formatNumber(to.checkerValue) : '—'}`;
   }
+  if (type === 'asset.created') return [str(d.code), str(d.name)].filter(Boolean).join(', ');
+  if (type === 'asset.study-linked') return `${str(d.studyCode)} covers ${str(d.assetCode)}`;
+  if (type === 'obligation-type.added') return `${str(d.name)} (${str(d.ownerStandard)})`;
+  if (type === 'obligation.recorded') return `${str(d.obligation)} at ${str(d.assetCode)} on ${str(d.doneOn)} by ${str(d.performedBy)}: ${str(d.result)}`;
+  if (type === 'system-data.published') return `${str(d.site)} version ${str(d.version)} (${str(d.source)}, ${str(d.sourceDate)})`;
+  if (type === 'study.needs-review' && Array.isArray(d.reasons)) return (d.reasons as unknown[]).map(str).filter(Boolean).join(' ');
   if (type === 'check-value.deleted') return str(d.itemKey) && itemKeyLabel(str(d.itemKey));
   if (type === 'checklist.updated' || type === 'remark.added' || type === 'check-value.added') return [str(d.title) || (str(d.itemKey) && itemKeyLabel(str(d.itemKey))), str(d.answer)].filter(Boolean).join(': ');
   return '';

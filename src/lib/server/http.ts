@@ -53,3 +53,10 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   }
   return parsed.data;
 }
+
+/** Parses a URL's query parameters with a zod schema; every failing parameter is named. */
+export function parseQuery<S extends z.ZodType>(url: URL, schema: S): z.output<S> {
+  const parsed = schema.safeParse(Object.fromEntries(url.searchParams));
+  if (!parsed.success) throw new AppError('InvalidInput', undefined, parsed.error.issues.map((i) => ({ field: i.path.join('.') || '(query)', message: i.message })));
+  return parsed.data;
+}

@@ -10,3 +10,4 @@ export * from './cable-types';
 export * from './study-summaries';
 export * from './document-numbers';
 export * from './record-settings';
+export * from './register';

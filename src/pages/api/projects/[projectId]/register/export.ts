@@ -1,0 +1,13 @@
+import { endpoint, parseQuery } from '../../../../../lib/server/http';
+import { services } from '../../../../../lib/server/services.server';
+import { assertId } from '../../../../../lib/db/revisions.repo';
+import { exportRegisterCsv } from '../../../../../lib/register/register-query';
+import { registerProjectIds, todayUtc } from '../../../../../lib/register/register-scope';
+import { registerQuerySchema } from '../../../../../lib/schemas/register.schema';
+
+export const GET = endpoint(async ({ locals, params, url }) => {
+  const projectIds = registerProjectIds(locals.user, assertId(params.projectId, 'project'));
+  const q = parseQuery(url, registerQuerySchema.omit({ projectId: true, after: true, pageSize: true }));
+  const csv = await exportRegisterCsv((await services()).db, projectIds, { ...q, pageSize: 200 }, todayUtc());
+  return new Response(csv, { headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': `attachment; filename="sheathwise-register-${todayUtc()}.csv"` } });
+});
