@@ -6,6 +6,7 @@ import { withQueryClient } from '../ui/with-query-client';
 import { Busy, ErrorNote, StateBadge } from '../ui/parts';
 import BondingEditor from '../editor/BondingEditor';
 import JsonInputsEditor from '../editor/JsonInputsEditor';
+import ExposureEditor from '../editor/ExposureEditor';
 import WorkflowBar from './WorkflowBar';
 import ResultsTab from './ResultsTab';
 import ChecklistTab from './ChecklistTab';
@@ -48,7 +49,7 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
         ))}
       </nav>
       <div role="tabpanel">
-        {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />)}
+        {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <ExposureEditor key={r.version} detail={data} readOnly={!editable} />)}
         {current === 'Inputs as JSON' && <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />}
         {current === 'Results' && <ResultsTab detail={data} />}
         {current === 'Checklist' && <ChecklistTab detail={data} userId={userId} roles={roles} />}
