@@ -5,7 +5,7 @@ import { Button } from '../ui/parts';
 export default function PastePreview({ preview, onApply, onDiscard }: { preview: SectionsPreview; onApply: () => void; onDiscard: () => void }) {
   const bad = preview.rows.filter((r) => !r.section).length;
   return (
-    <div className="mt-2 rounded border border-rule bg-paper p-2" data-testid="paste-preview" aria-label="Preview of the pasted sections">
+    <div className="mt-2 rounded border border-rule bg-paper p-2" data-testid="paste-preview" aria-label="Rows read from the paste, before applying">
       <p className="text-sm">{describeDelimiter(preview)} {preview.rows.length} row(s) read{bad ? `, ${bad} refused` : ''}.</p>
       {preview.problems.map((p) => <p key={p} role="alert" className="text-sm text-fail">{p}</p>)}
       <table className="mt-1 text-sm">

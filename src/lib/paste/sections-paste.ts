@@ -69,8 +69,12 @@ export function previewSections(text: string, opts: { defaultLayoutId: string; l
     if (!columns.includes('lengthM')) problems.push('The header has no length column.');
     body = records.slice(1);
   } else {
-    columns = POSITIONAL[records[0].cells.length] ?? [];
-    if (!columns.length) problems.push(`Line ${records[0].line} has ${records[0].cells.length} cells; a row has 1 to 4 (id, length, layout, shift).`);
+    // The count most rows have (the smaller on a tie): one odd row, e.g. a split decimal comma, is refused, not followed.
+    const counts = new Map<number, number>();
+    for (const r of records) counts.set(r.cells.length, (counts.get(r.cells.length) ?? 0) + 1);
+    const usual = [...counts].sort((a, b) => b[1] - a[1] || a[0] - b[0])[0][0];
+    columns = POSITIONAL[usual] ?? [];
+    if (!columns.length) problems.push(`Most lines have ${usual} cells; a row has 1 to 4 (id, length, layout, shift).`);
   }
 
   const seen = new Map<string, number>();
@@ -87,6 +91,9 @@ export function previewSections(text: string, opts: { defaultLayoutId: string; l
     if (delimiter === ',' && !header && columns.length === 2 && /^\d+$/.test(rec.cells[0]) && /^\d+$/.test(rec.cells[1]))
       errors.push(`Line ${rec.line}: “${rec.cells.join(',')}” could be one length with a decimal comma or an id and a length. Use a decimal point, quote the number, or separate the columns with tabs or semicolons.`);
 
+    const after = rec.cells[columns.indexOf('lengthM') + 1];
+    if (delimiter === ',' && !header && /^\d+$/.test(cell('lengthM') ?? '') && after !== undefined && /^\d+$/.test(after))
+      errors.push(`Line ${rec.line}: “${cell('lengthM')},${after}” could be one length with a decimal comma. Use a decimal point, quote the number, or separate the columns with tabs or semicolons.`);
     const length = readNumber(cell('lengthM') ?? '');
     let lengthM = NaN;
     if ('empty' in length) errors.push(`Line ${rec.line}: the length is missing.`);

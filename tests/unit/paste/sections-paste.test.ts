@@ -13,6 +13,7 @@ const table: Array<[string, string, Array<number | null>, boolean]> = [
   ['lengths only, decimal points', '480.5\n500\n', [480.5, 500], true],
   ['lengths only with a comma: a number or two columns? refused', '480,5\n500,25', [null, null], false],
   ['one row with a decimal comma among plain lengths: refused by count', '500\n480,5\n600', [500, null, 600], false],
+  ['the odd row first: the usual count still wins', '480,5\n500\n600', [null, 500, 600], false],
   ['tab cells, ambiguous thousands', 'S1\t1,250\tL1\t0', [null], false],
   ['tab cells, grouped with a point', 'S1\t1,250.5\tL1\t0', [1250.5], true],
   ['negative length refused', 'S1\t-5\tL1\t0', [null], false],
@@ -35,9 +36,9 @@ describe('previewSections', () => {
     }
   });
 
-  it('never reads 480,5 as 480 and 5', () => {
-    for (const text of ['480,5', 'S1,480,5', 'S1,480,5,L1', 'S1,480,5,L1,0']) {
-      const p = previewSections(text, opts);
+  it('never reads 480,5 as 480 and 5, even where a layout is called 5', () => {
+    for (const text of ['480,5', 'S1,480,5', 'S1,480,5,L1', 'S1,480,5,L1,0', '480,5\n500\n600', 'S1,480,5\nS2,500,5']) {
+      const p = previewSections(text, { defaultLayoutId: 'L1', layoutIds: ['L1', '5'] });
       expect(p.ok).toBe(false);
       expect(p.rows.some((r) => r.section?.lengthM === 480 || r.section?.lengthM === 5)).toBe(false);
     }
