@@ -99,7 +99,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await answerManualItems(page);
     await screenshot(page, 'checklist-designer');
     await confirmStep(page, 'Submit for check');
-    await expect.poll(() => stage(page)).toBe('Waiting for check');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Waiting for check');
   });
 
   it('a checker finds it in the queue, queries an item and returns it with a remark', async () => {
@@ -107,7 +107,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByTestId('queue-checker').getByRole('link', { name: new RegExp(code) }).click();
     await hydrated(page);
     await page.getByRole('button', { name: 'Take for checking' }).click();
-    await expect.poll(() => stage(page)).toBe('Being checked');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Being checked');
     await page.getByRole('tab', { name: 'Checklist' }).click();
     await page.getByTestId('checklist').getByRole('button', { name: 'Query' }).first().click();
     await page.getByRole('textbox', { name: /^Query on / }).fill('Which earth resistance did you assume at the link boxes?');
@@ -118,7 +118,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByRole('button', { name: 'Add remark' }).click();
     await page.getByText('Write the remark.').waitFor();
     await confirmStep(page, 'Return to designer', 'Section 2 must be 480 m as surveyed; please correct and recalculate.');
-    await expect.poll(() => stage(page)).toBe('Returned to designer');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Returned to designer');
     await page.getByRole('tab', { name: /Remarks/ }).click();
     await expect(page.getByTestId('remarks').textContent()).resolves.toContain('480 m as surveyed');
   });
@@ -139,7 +139,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     // The designer answers; closing is the checker's.
     expect(await query.getByRole('button', { name: 'Close thread' }).count()).toBe(0);
     await confirmStep(page, 'Submit for check', 'Corrected section 2 to the surveyed 480 m.');
-    await expect.poll(() => stage(page)).toBe('Waiting for check');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Waiting for check');
   });
 
   it('the checker is refused the pass while threads are open, closes them, agrees with the rest, records a check value and passes it', async () => {
@@ -147,7 +147,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.goto(revisionUrl);
     await hydrated(page);
     await page.getByRole('button', { name: 'Take for checking' }).click();
-    await expect.poll(() => stage(page)).toBe('Being checked');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Being checked');
     await confirmStep(page, 'Pass the check');
     await page.getByText(/still queried: close each query once answered|still open: close each once answered/).waitFor();
     await page.getByRole('button', { name: 'Cancel' }).click();
@@ -190,7 +190,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await screenshot(page, 'files-comparison');
 
     await confirmStep(page, 'Pass the check');
-    await expect.poll(() => stage(page)).toBe('Checked, awaiting approval');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Checked, awaiting approval');
   });
 
   it('the approver issues it', async () => {
@@ -200,7 +200,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByRole('tab', { name: 'Checklist' }).click();
     await screenshot(page, 'approval');
     await confirmStep(page, 'Approve and issue', 'Approved for construction on the owner\'s behalf.');
-    await expect.poll(() => stage(page)).toBe('Issued');
+    await expect.poll(() => stage(page), { timeout: 20_000 }).toBe('Issued');
   });
 
   it('an approver cannot issue a revision with an unjustified failing item, and must justify it in a sentence', async () => {
