@@ -41,7 +41,20 @@ export default function CrossSectionSketch({ layout, cableTypes, circuits }: { l
     ...placements.flatMap((c) => c.cables.map((q) => ({ x: px(q.xM), y: py(q.depthM), r: Math.max(c.rM * scale, 2), label: q.label }))),
     ...eccs.map((e) => ({ x: px(e.xM), y: py(e.depthM), r: 3, label: `ECC ${e.label}` })),
   ];
-  const labels = placeLabels(marks);
+  // Where the dimension texts go, computed once: drawn below, and kept clear of the labels.
+  const dims = placements.map(({ p, cables }) => {
+    const deepest = Math.max(...cables.map((q) => q.depthM));
+    const a = cables[0];
+    const next = p.formation === 'flat' ? cables[1] : cables[2];
+    const dimX = Math.min(...cables.map((q) => q.xM)) - 0.02;
+    const depthText = `${fmt(deepest)} m`;
+    const spacingText = p.formation === 'coordinates' ? '' : `s = ${fmt(Number(p.spacingM))} m`;
+    return { p, deepest, a, next, dimX, depthText, spacingText, boxes: [
+      { x: px(dimX) - 10 - depthText.length * 6, y: (py(0) + py(deepest)) / 2 - 10, width: depthText.length * 6, height: 12 },
+      ...(p.formation !== 'coordinates' ? [{ x: (px(a.xM) + px(next.xM)) / 2 - spacingText.length * 3, y: py(deepest) + 15, width: spacingText.length * 6, height: 12 }] : []),
+    ] };
+  });
+  const labels = placeLabels(marks, 6, 11, dims.flatMap((d) => d.boxes));
 
   return (
     <figure data-testid="cross-section-sketch">
@@ -51,23 +64,17 @@ export default function CrossSectionSketch({ layout, cableTypes, circuits }: { l
         <text x={4} y={py(0) - 8} fill="#5a4a2a">ground</text>
         <line x1={px(0)} x2={px(0)} y1={py(0)} y2={height - 4} stroke="#999" strokeDasharray="3 3" />
         <text x={px(0) + 2} y={height - 6} fill="#666">x = 0</text>
-        {placements.map(({ p, cables }) => {
-          const deepest = Math.max(...cables.map((q) => q.depthM));
-          const a = cables[0];
-          const next = p.formation === 'flat' ? cables[1] : cables[2];
-          const dimX = Math.min(...cables.map((q) => q.xM)) - 0.02;
-          return (
-            <g key={p.circuitId} stroke="#2a4a7a" fill="#2a4a7a" data-testid="dimension">
-              <line x1={px(dimX) - 8} x2={px(dimX) - 8} y1={py(0)} y2={py(deepest)} markerEnd="" strokeWidth={0.8} />
-              <text x={px(dimX) - 10} y={(py(0) + py(deepest)) / 2} textAnchor="end" stroke="none">{fmt(deepest)} m</text>
-              {p.formation !== 'coordinates' && <>
-                <line x1={px(a.xM)} x2={px(next.xM)} y1={py(deepest) + 14} y2={py(deepest) + 14} strokeWidth={0.8} />
-                <text x={(px(a.xM) + px(next.xM)) / 2} y={py(deepest) + 25} textAnchor="middle" stroke="none">s = {fmt(Number(p.spacingM))} m</text>
-                {Number(p.centreXM) !== 0 && <text x={px(Number(p.centreXM))} y={py(0) + 12} textAnchor="middle" stroke="none">offset {fmt(Number(p.centreXM))} m</text>}
-              </>}
-            </g>
-          );
-        })}
+        {dims.map(({ p, deepest, a, next, dimX, depthText, spacingText }) => (
+          <g key={p.circuitId} stroke="#2a4a7a" fill="#2a4a7a" data-testid="dimension">
+            <line x1={px(dimX) - 8} x2={px(dimX) - 8} y1={py(0)} y2={py(deepest)} strokeWidth={0.8} />
+            <text x={px(dimX) - 10} y={(py(0) + py(deepest)) / 2} textAnchor="end" stroke="none">{depthText}</text>
+            {p.formation !== 'coordinates' && <>
+              <line x1={px(a.xM)} x2={px(next.xM)} y1={py(deepest) + 14} y2={py(deepest) + 14} strokeWidth={0.8} />
+              <text x={(px(a.xM) + px(next.xM)) / 2} y={py(deepest) + 25} textAnchor="middle" stroke="none">{spacingText}</text>
+              {Number(p.centreXM) !== 0 && <text x={px(Number(p.centreXM))} y={py(0) + 12} textAnchor="middle" stroke="none">offset {fmt(Number(p.centreXM))} m</text>}
+            </>}
+          </g>
+        ))}
         {marks.map((m) => m.label.startsWith('ECC ')
           ? <circle key={m.label} cx={m.x} cy={m.y} r={m.r} fill="#2f6b3a" />
           : <circle key={m.label} cx={m.x} cy={m.y} r={m.r} fill="#a4522a" stroke="#16202e" />)}

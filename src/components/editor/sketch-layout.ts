@@ -21,10 +21,15 @@ export interface PlacedLabel {
 const overlaps = (a: { x: number; y: number; width: number; height: number }, b: { x: number; y: number; width: number; height: number }) =>
   a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
 
-/** Boxes (top-left corner) of the labels; `charWidth` and `height` estimate the text size. */
-export function placeLabels(marks: Mark[], charWidth = 6, height = 11): PlacedLabel[] {
+export type Box = { x: number; y: number; width: number; height: number };
+
+/**
+ * Boxes (top-left corner) of the labels; `charWidth` and `height` estimate the text size. `keepClear`
+ * are other things already drawn (dimension texts) that labels must not cover either.
+ */
+export function placeLabels(marks: Mark[], charWidth = 6, height = 11, keepClear: Box[] = []): PlacedLabel[] {
   const placed: PlacedLabel[] = [];
-  const obstacles = marks.map((m) => ({ x: m.x - m.r, y: m.y - m.r, width: 2 * m.r, height: 2 * m.r }));
+  const obstacles = [...marks.map((m) => ({ x: m.x - m.r, y: m.y - m.r, width: 2 * m.r, height: 2 * m.r })), ...keepClear];
   for (const m of marks) {
     const width = m.label.length * charWidth;
     const gap = 2;

@@ -20,3 +20,13 @@ describe('sketch labels', () => {
     }
   });
 });
+
+describe('sketch labels and dimension texts', () => {
+  it('keeps labels off the boxes it is told to keep clear', () => {
+    const marks: Mark[] = [{ x: 100, y: 100, r: 10, label: 'C1-a' }];
+    const dimension = { x: 70, y: 70, width: 60, height: 20 }; // covers the place above the cable
+    const [label] = placeLabels(marks, 6, 11, [dimension]);
+    expect(overlaps(label, dimension)).toBe(false);
+    expect(overlaps(label, { x: 90, y: 90, width: 20, height: 20 })).toBe(false);
+  });
+});
