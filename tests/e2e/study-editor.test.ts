@@ -212,4 +212,20 @@ describe('the study editor', () => {
     const r = await stored(revisionId);
     expect([r.inputs.title, r.inputs.soilResistivityOhmM, r.inputs.sections[1].lengthM]).toEqual(['Their title', 300, 455]);
   });
+
+  it('copies a study from its page and opens the copy', { timeout: 120_000 }, async () => {
+    const revisionId = await newStudy();
+    const studyId = (await stored(revisionId)).studyId;
+    const page = sessions[0].page;
+    await page.goto(`${appUrl}/studies/${studyId}`);
+    await hydrated(page);
+    const copyCode = `CP${process.pid % 1000}-${Date.now() % 100000}`;
+    await page.getByLabel('Code of the copy').fill(copyCode);
+    await page.getByLabel('Title of the copy').fill('A copy made from the page');
+    await page.getByRole('button', { name: 'Copy and open the copy' }).click();
+    await page.waitForURL((url) => url.pathname.startsWith('/revisions/') && !url.pathname.includes(revisionId));
+    await hydrated(page);
+    await page.getByRole('heading', { name: new RegExp(copyCode) }).waitFor();
+    expect(await page.getByLabel('Title', { exact: true }).inputValue()).toBe('A copy made from the page');
+  });
 });
