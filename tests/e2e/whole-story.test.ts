@@ -87,12 +87,12 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByLabel('Cable type of C1').selectOption('XL132-630');
 
     // Bad input: a zero length is refused field by field, and nothing is saved.
-    await page.getByLabel('Section 2 length').fill('0');
+    await page.getByLabel('Length of section S2').fill('0');
     await page.getByRole('button', { name: 'Save inputs' }).click();
-    await page.getByText('Section length must be greater than zero.').waitFor();
+    await page.locator('[data-error-for="sections.1.lengthM"]', { hasText: 'Section length must be greater than zero.' }).waitFor();
     await screenshot(page, 'editor-bad-input');
 
-    await page.getByLabel('Section 2 length').fill('470');
+    await page.getByLabel('Length of section S2').fill('470');
     await page.getByRole('button', { name: 'Save inputs' }).click();
     await page.getByRole('button', { name: 'Calculate' }).click();
     await page.getByTestId('calculated').waitFor();
@@ -131,7 +131,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     const page = sessionsPage(0);
     await page.goto(revisionUrl);
     await hydrated(page);
-    await page.getByLabel('Section 2 length').fill('480');
+    await page.getByLabel('Length of section S2').fill('480');
     await page.getByRole('button', { name: 'Save inputs' }).click();
     await page.getByRole('button', { name: 'Calculate' }).click();
     await page.getByTestId('calculated').waitFor();
@@ -286,7 +286,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     await page.getByRole('button', { name: 'Start a new revision' }).click();
     await page.waitForURL((url) => url.href !== revisionUrl && /\/revisions\//.test(url.pathname));
     await hydrated(page);
-    await page.getByLabel('Section 2 length').fill('500');
+    await page.getByLabel('Length of section S2').fill('500');
     await page.getByTestId('unsaved').waitFor();
     await page.getByRole('button', { name: 'Save inputs' }).click();
     await page.getByTestId('unsaved').waitFor({ state: 'detached' });

@@ -60,6 +60,7 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   },
   { route: 'GET /api/studies/[studyId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/studies/${f.issuedStudyId}` }) },
   { route: 'POST /api/studies/[studyId]/revisions', allowed: ['designer'], status: 201, call: (f) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/revisions` }) },
+  { route: 'POST /api/studies/[studyId]/copy', allowed: ['designer'], status: 201, call: (f, role) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/copy`, body: { projectId: f.projectId, code: `MC-${role}-${Date.now() % 100000}`, title: 'Matrix copy' } }) },
   { route: 'GET /api/revisions/[revisionId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}` }) },
   { route: 'PUT /api/revisions/[revisionId]/inputs', allowed: ['designer'], status: 200, call: (f) => ({ method: 'PUT', path: `/api/revisions/${f.draft}/inputs`, body: { version: -1, inputs: fixtureInputs('fernhollow-cross-bonded') } }) },
   { route: 'POST /api/revisions/[revisionId]/calculate', allowed: ['designer'], status: 200, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.draft}/calculate` }) },

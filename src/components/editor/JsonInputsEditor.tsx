@@ -4,6 +4,7 @@ import { studySchema, describeIssues } from '../../lib/schemas/study.schema';
 import { api } from '../../lib/queries/api-client';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import { Busy, Button, ErrorNote } from '../ui/parts';
+import { useLeaveGuard } from './leave-guard';
 
 /** The inputs as JSON, checked against the same schema as the forms before saving. */
 export default function JsonInputsEditor({ detail, readOnly }: { detail: RevisionDetail; readOnly: boolean }) {
@@ -11,6 +12,7 @@ export default function JsonInputsEditor({ detail, readOnly }: { detail: Revisio
   const r = detail.revision;
   const [text, setText] = useState(() => JSON.stringify(r.inputs, null, 2));
   const [problems, setProblems] = useState<Array<{ field: string; message: string }>>([]);
+  useLeaveGuard(!readOnly && text !== JSON.stringify(r.inputs, null, 2));
   const save = useMutation({
     mutationFn: (inputs: unknown) => api(`/api/revisions/${r.id}/inputs`, { method: 'PUT', body: { version: r.version, inputs } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['revision', r.id] }),

@@ -7,7 +7,7 @@ import { Busy, ErrorNote, StateBadge } from '../ui/parts';
 import { LoadedPart } from '../ui/LoadedPart';
 import WorkflowBar from './WorkflowBar';
 import RecordDownload from './RecordDownload';
-import { BondingEditor, CheckValuesTab, ChecklistTab, FilesTab, HistoryTab, JsonInputsEditor, RemarksTab, ResultsTab, TAB_CODE } from './workspace-tabs';
+import { BondingEditor, CheckValuesTab, ChecklistTab, ExposureEditor, FilesTab, HistoryTab, JsonInputsEditor, RemarksTab, ResultsTab, TAB_CODE } from './workspace-tabs';
 
 const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History'] as const;
 type Tab = (typeof TABS)[number];
@@ -16,7 +16,7 @@ type Tab = (typeof TABS)[number];
 function tabCode(tab: Tab, kind: string): () => Promise<unknown> {
   switch (tab) {
     case 'Inputs':
-      return kind === 'bonding' ? TAB_CODE.bondingEditor : TAB_CODE.jsonEditor;
+      return kind === 'bonding' ? TAB_CODE.bondingEditor : TAB_CODE.exposureEditor;
     case 'Inputs as JSON':
       return TAB_CODE.jsonEditor;
     case 'Results':
@@ -67,7 +67,7 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
       </nav>
       <div role="tabpanel">
         <LoadedPart key={current} loadingLabel={`Loading the “${current}” tab…`}>
-          {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />)}
+          {current === 'Inputs' && (data.study.kind === 'bonding' ? <BondingEditor key={r.version} detail={data} readOnly={!editable} /> : <ExposureEditor key={r.version} detail={data} readOnly={!editable} />)}
           {current === 'Inputs as JSON' && <JsonInputsEditor key={r.version} detail={data} readOnly={!editable} />}
           {current === 'Results' && <ResultsTab detail={data} />}
           {current === 'Checklist' && <ChecklistTab detail={data} userId={userId} roles={roles} />}

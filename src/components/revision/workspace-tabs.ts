@@ -5,6 +5,7 @@ import { lazy } from 'react';
 // JavaScript ≤ 150 kB gzipped). The charts (recharts) and the editors come with their tabs.
 export const TAB_CODE = {
   bondingEditor: () => import('../editor/BondingEditor'),
+  exposureEditor: () => import('../editor/ExposureEditor'),
   jsonEditor: () => import('../editor/JsonInputsEditor'),
   results: () => import('./ResultsTab'),
   checklist: () => import('./ChecklistTab'),
@@ -15,6 +16,7 @@ export const TAB_CODE = {
 };
 
 export const BondingEditor = lazy(TAB_CODE.bondingEditor);
+export const ExposureEditor = lazy(TAB_CODE.exposureEditor);
 export const JsonInputsEditor = lazy(TAB_CODE.jsonEditor);
 export const ResultsTab = lazy(TAB_CODE.results);
 export const ChecklistTab = lazy(TAB_CODE.checklist);

@@ -14,6 +14,7 @@ import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '..
 import { latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
 import { checklistRows } from './checklist-rows';
 import { parseStudyInputs } from './study-input';
+import { issuedRevisionOf } from './study-copy.service';
 import type { Database } from '../db/client';
 
 export interface NewStudy {
@@ -125,23 +126,24 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
 
 const OPEN_STATES: RevisionState[] = ['draft', 'ready_for_check', 'in_check', 'returned', 'checked'];
 
-/** Starts the next revision of a study from a copy of the latest revision's inputs. */
-export async function startNewRevision(s: AppServices, actor: SessionUser, studyId: string) {
+/** Starts the next revision of a study from a copy of the inputs of the latest revision, or of the issued one chosen. */
+export async function startNewRevision(s: AppServices, actor: SessionUser, studyId: string, fromRevisionId?: string) {
   const { study } = await loadStudyScope(s.db, studyId);
   return inTransaction(s.pool, async (tx) => {
     const all = await tx.select().from(revisions).where(eq(revisions.studyId, studyId)).orderBy(desc(revisions.number)).for('update');
     const open = all.find((r) => OPEN_STATES.includes(r.state));
     if (open) throw new AppError('StepRefused', `Revision ${open.number} is still ${open.state.replace(/_/g, ' ')}: finish or withdraw it first.`);
     const latest = all[0];
+    const from = fromRevisionId ? await issuedRevisionOf(tx, studyId, fromRevisionId) : latest;
     // A second request in the same moment cannot see the first one's new row: the unique key
     // (study, number) refuses it, and the person is told what happened.
     const [revision] = await tx
       .insert(revisions)
-      .values({ studyId, number: latest.number + 1, machineVersion: REVISION_MACHINE_VERSION, inputs: latest.inputs, inputsHash: latest.inputsHash, designerId: actor.id, basedOnId: latest.id })
+      .values({ studyId, number: latest.number + 1, machineVersion: REVISION_MACHINE_VERSION, inputs: from.inputs, inputsHash: from.inputsHash, designerId: actor.id, basedOnId: from.id })
       .onConflictDoNothing()
       .returning();
     if (!revision) throw new AppError('Conflict', `Revision ${latest.number + 1} was started by someone else a moment ago: reload the study.`);
-    await appendAudit(tx, { actorId: actor.id, type: 'revision.created', projectId: study.projectId, studyId, revisionId: revision.id, detail: { number: revision.number, basedOn: latest.number } });
+    await appendAudit(tx, { actorId: actor.id, type: 'revision.created', projectId: study.projectId, studyId, revisionId: revision.id, detail: { number: revision.number, basedOn: from.number } });
     return revision;
   });
 }
