@@ -61,6 +61,10 @@ describe('sizes beyond the stated limits are refused, naming the field', () => {
     const input = referenceStudyInput({ sections: sections(...Array<number>(n).fill(10)), bonding: [{ kind: 'solid', sectionIds: Array.from({ length: n }, (_, i) => `S${i + 1}`) }], cases });
     expect(issuesOf(input)).toContainEqual({ field: 'cases', message: expect.stringContaining('21 cases on 1000 sections') });
     expect(bondingStudySchema.safeParse({ ...input, cases: cases.slice(0, 20) }).success).toBe(true);
+    // Said once, however many of the cases are internal faults.
+    const internal = { id: 'IF', name: 'internal', kind: 'internal-fault' as const, durationS: 0.5, internalFault: { circuitId: 'C1', phase: 'a' as const, jointIndex: 1, fromStart: { currentA: 1000 } } };
+    const mixed = issuesOf({ ...input, cases: [...cases.slice(0, 19), internal, { ...internal, id: 'IF2' }] });
+    expect(mixed.filter((i) => i.message.includes('section-cases'))).toHaveLength(1);
   });
 
   it(`more than ${STUDY_LIMITS.conductors} sheaths and ECCs in a cross-section`, () => {
