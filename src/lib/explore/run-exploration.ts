@@ -65,6 +65,8 @@ function throwIfAborted(signal?: AbortSignal) {
 async function inChunks<T>(total: number, step: (i: number) => T, { onProgress, signal }: RunOptions): Promise<T[]> {
   const out: T[] = [];
   onProgress?.({ done: 0, total });
+  // The caller (a request) gets its answer before the first chunk runs.
+  await yieldToLoop();
   while (out.length < total) {
     throwIfAborted(signal);
     const t0 = performance.now();
