@@ -1,4 +1,5 @@
 import { and, asc, eq, inArray, like, lte } from 'drizzle-orm';
+import { gatherExplorations } from './record-explorations';
 import type { Database } from '../db/client';
 import { auditEvents, documentNumberPatterns, limitSetVersions, limitSets, revisionFiles, revisions, users } from '../db/schema';
 import { revisionDetail } from '../db/revisions.repo';
@@ -47,6 +48,7 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
     : [];
   const numberOf = new Map(history.map((h) => [h.id, h.number]));
   const changes = await compareRevisions(db, revisionId, 'previous');
+  const explorations = await gatherExplorations(db, revisionId);
 
   return xmlSafe({
     draft: !['issued', 'superseded'].includes(revision.state),
@@ -67,6 +69,7 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
     workflowEvents: events.map((e) => ({ at: e.at, revision: numberOf.get(e.revisionId!) ?? 0, type: e.type, actor: e.actorId ? (people.get(e.actorId) ?? '') : 'Sheathwise', reason: typeof (e.detail as { reason?: unknown }).reason === 'string' ? ((e.detail as { reason: string }).reason) : null })),
     files: files.map((f) => ({ fileName: f.fileName, kind: f.kind, sizeBytes: f.sizeBytes, sha256: f.sha256, uploadedBy: people.get(f.uploadedBy) ?? '', createdAt: f.createdAt })),
     commissioning: await commissioning(store, files, inputs, results),
+    ...(explorations.choice || explorations.saved.length ? { explorations } : {}),
     changes: changes.from ? { fromNumber: changes.from.number, inputChanges: changes.inputChanges, worstChanges: changes.worstChanges.map((w) => w.text), verdictChanges: changes.verdictChanges.map((v) => v.text) } : null,
   });
 }

@@ -12,6 +12,7 @@ import { resultBlocks } from './record-results';
 import { routePlotSvg, svgToPng } from './route-plot';
 import { assumptions } from './record-assumptions';
 import { eventSentence } from './event-sentences';
+import { explorationBlocks } from './record-explorations';
 
 const ROLE_WORD = { designer: 'Designed', checker: 'Checked', approver: 'Approved' } as const;
 
@@ -63,6 +64,7 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
     heading(text.resultsHeading),
     ...(data.results ? resultBlocks(data.results) : [body('The revision has not been calculated.', { italic: true })]),
     ...plotBlocks(data),
+    ...explorationBlocks(data.explorations),
     heading(text.checklistHeading),
     ...(computed.length
       ? [
