@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { revisionQuery } from '../../lib/queries/revisions.queries';
 import type { WorkflowRole } from '../../lib/workflow/revision.machine';
@@ -15,7 +15,9 @@ import HistoryTab from './HistoryTab';
 import RecordDownload from './RecordDownload';
 import FilesTab from './FilesTab';
 
-const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History'] as const;
+const ExploreTab = lazy(() => import('../explore/ExploreTab'));
+
+const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History', 'Explore'] as const;
 type Tab = (typeof TABS)[number];
 
 function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; userId: string; roles: WorkflowRole[] }) {
@@ -56,6 +58,7 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
         {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
         {current === 'Files' && <FilesTab detail={data} canUpload={participant} />}
         {current === 'History' && <HistoryTab revisionId={r.id} />}
+        {current === 'Explore' && <Suspense fallback={<Busy label="Loading…" />}><ExploreTab detail={data} canRun={roles.includes('designer') && participant} /></Suspense>}
       </div>
     </div>
   );

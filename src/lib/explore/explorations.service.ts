@@ -23,6 +23,8 @@ import { runExploration, type ExplorationTask } from './run-exploration';
 const MAX_RUNNING_PER_REVISION = 2;
 /** How often progress is written to the job row, ms. */
 const PROGRESS_WRITE_MS = 250;
+/** Longer than any grid under the limit takes on a busy machine (1,000 points at some 0.2 s each). */
+const STALE_MINUTES = 15;
 
 const running = new Map<string, AbortController>();
 
@@ -61,6 +63,11 @@ export async function startExploration(s: AppServices, actor: SessionUser, revis
     if (err instanceof ExploreError) throw refused(err);
     throw err;
   }
+  // A run whose server stopped never finishes: after STALE_MINUTES it no longer holds a place.
+  await s.db
+    .update(explorations)
+    .set({ status: 'failed', error: 'Interrupted: the server stopped while it ran. Run it again.', finishedAt: new Date() })
+    .where(and(eq(explorations.revisionId, revisionId), eq(explorations.status, 'running'), sql`${explorations.createdAt} < now() - make_interval(mins => ${STALE_MINUTES})`));
   const [{ count }] = await s.db.select({ count: sql<number>`count(*)::int` }).from(explorations).where(and(eq(explorations.revisionId, revisionId), eq(explorations.status, 'running')));
   if (count >= MAX_RUNNING_PER_REVISION) throw new AppError('StepRefused', `${count} explorations are already running on this revision: wait for one to finish or cancel it.`);
   const { kind, ...params } = request;
