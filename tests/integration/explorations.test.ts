@@ -4,7 +4,7 @@ import { createDatabase } from '../../src/lib/db/client';
 import { auditEvents } from '../../src/lib/db/schema';
 import { testEnv } from '../helpers/env';
 import type { HttpSession } from '../helpers/http-session';
-import { type DemoRole, demoSessions, json, readyDraft, send } from '../helpers/workflow-api';
+import { type DemoRole, demoSessions, drive, json, readyDraft, send } from '../helpers/workflow-api';
 
 // Issue 14 through the HTTP API: run, progress, cancel, refusal, save and the bonding choice.
 
@@ -105,5 +105,30 @@ describe('explorations', () => {
     expect(read.choice.reason).toBe('Lowest losses with standing voltages inside the limit.');
     const events = await db.select().from(auditEvents).where(and(eq(auditEvents.revisionId, revisionId), eq(auditEvents.type, 'bonding.chosen')));
     expect(events).toHaveLength(1);
+  });
+
+  it('accepts a joint-bay placement into a new draft with one audited action', async () => {
+    const issued = await readyDraft(sessions.designer, 'fernhollow-cross-bonded', 'P');
+    await drive(sessions, issued.revisionId, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass'], ['approver', 'issue']]);
+    const path = `/api/revisions/${issued.revisionId}/explorations`;
+    const row = await json(await send(sessions.designer, 'POST', path, { kind: 'placement', drumLengthM: 2000 }), 202);
+    let done = row;
+    for (let i = 0; i < 600 && done.status === 'running'; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      done = await json(await sessions.designer.fetch(`${path}/${row.id}`), 200);
+    }
+    expect(done.status).toBe('done');
+    const suggested = done.result.placement.majorSections[0].suggestedLengthsM as number[];
+    await json(await send(sessions.checker, 'POST', `${path}/${row.id}/accept`), 403);
+    const created = await json(await send(sessions.designer, 'POST', `${path}/${row.id}/accept`), 201);
+    expect(created.number).toBe(2);
+    const next = await json(await sessions.designer.fetch(`/api/revisions/${created.id}`), 200);
+    expect(next.revision.state).toBe('draft');
+    const ids = done.result.placement.majorSections[0].sectionIds as string[];
+    expect(ids.map((id) => next.revision.inputs.sections.find((s: { id: string }) => s.id === id).lengthM)).toEqual(suggested);
+    const events = await db.select().from(auditEvents).where(and(eq(auditEvents.revisionId, created.id), eq(auditEvents.type, 'exploration.placement-accepted')));
+    expect(events).toHaveLength(1);
+    const again = await json(await send(sessions.designer, 'POST', `${path}/${row.id}/accept`), 422);
+    expect(again.message).toMatch(/^Revision 2 is still draft/);
   });
 });

@@ -38,6 +38,8 @@ interface Fixture {
   userId: string;
   fileId: string;
   measurementsId: string;
+  exploreDraft: string;
+  explorationId: string;
 }
 
 type Call = (f: Fixture, role: Role) => { method: string; path: string; body?: unknown };
@@ -121,6 +123,16 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
     status: 201,
     call: (f) => ({ method: 'POST', path: `/api/admin/limit-sets/${f.limitSetId}/versions`, body: { limits: JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')).limits, manualItems: [{ key: 'link-boxes', text: 'Link boxes are lockable and labelled.', basis: 'common practice' }], checkTolerancePct: 2 } }),
   },
+  { route: 'GET /api/revisions/[revisionId]/explorations', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations` }) },
+  { route: 'POST /api/revisions/[revisionId]/explorations', allowed: ['designer'], status: 202, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations`, body: { kind: 'placement', drumLengthM: 900 } }) },
+  { route: 'GET /api/revisions/[revisionId]/explorations/[explorationId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}` }) },
+  // A finished exploration: the designer passes the role check and is told there is nothing to cancel.
+  { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/cancel', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/cancel` }) },
+  { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/save', allowed: ['designer'], status: 200, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/save` }) },
+  // An appraisal is no placement: the designer passes the role check and is told what to choose.
+  { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/accept', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/accept` }) },
+  { route: 'GET /api/revisions/[revisionId]/bonding-choice', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/bonding-choice` }) },
+  { route: 'PUT /api/revisions/[revisionId]/bonding-choice', allowed: ['designer'], status: 200, call: (f) => ({ method: 'PUT', path: `/api/revisions/${f.exploreDraft}/bonding-choice`, body: { explorationId: f.explorationId, optionKey: 'current', reason: 'Matrix choice.' } }) },
 ];
 
 // Public by design: no session needed. Checked by their own tests.
@@ -155,7 +167,11 @@ describe('role × endpoint matrix', () => {
     const me = await json(await sessions.designer.fetch('/api/me'), 200);
     const file = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('data-sheet', 'svl.pdf', '%PDF-1.4\n% matrix\n')), 201);
     const measurements = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('measurements', 'readings.csv', 'joint,cable,measured_v,load_a\n1,C1-a,12.0,500\n')), 201);
-    f = { projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
+    const exploreDraft = (await readyDraft(sessions.designer)).revisionId;
+    const appraisal = await json(await send(sessions.designer, 'POST', `/api/revisions/${exploreDraft}/explorations`, { kind: 'appraisal' }), 202);
+    for (let i = 0; i < 600 && (await json(await sessions.designer.fetch(`/api/revisions/${exploreDraft}/explorations/${appraisal.id}`), 200)).status === 'running'; i++) await new Promise((r) => setTimeout(r, 100));
+    await json(await send(sessions.designer, 'POST', `/api/revisions/${exploreDraft}/explorations/${appraisal.id}/save`), 200);
+    f = { exploreDraft, explorationId: appraisal.id, projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
   });
 
   for (const entry of matrix) {
