@@ -205,6 +205,7 @@ function PlacementPanel({ revisionId, canRun }: { revisionId: string; canRun: bo
   const job = useExploration<PlacementResult>(revisionId);
   const [drum, setDrum] = useState('800');
   const [windows, setWindows] = useState('');
+  const [acceptError, setAcceptError] = useState<unknown>(null);
   const p = job.row?.result;
   const parseWindows = () =>
     windows.split(/[;\n]/).map((w) => w.trim()).filter(Boolean).map((w) => {
@@ -237,7 +238,15 @@ function PlacementPanel({ revisionId, canRun }: { revisionId: string; canRun: bo
               ))}
             </tbody>
           </table>
-          {canRun && job.row?.status === 'done' && (job.row.savedAt ? <p className="text-sm">Saved with the revision.</p> : <Button tone="plain" onClick={job.save}>Save the placement with the revision</Button>)}
+          {canRun && job.row?.status === 'done' && (
+            <div className="flex flex-wrap gap-2">
+              {job.row.savedAt ? <p className="text-sm">Saved with the revision.</p> : <Button tone="plain" onClick={job.save}>Save the placement with the revision</Button>}
+              {p.placement.suggestedStudy && (
+                <Button onClick={async () => { setAcceptError(null); try { const next = await api<{ id: string }>(`/api/revisions/${revisionId}/explorations/${job.row!.id}/accept`, { method: 'POST' }); window.location.assign(`/revisions/${next.id}`); } catch (e) { setAcceptError(e); } }}>Accept into a new draft</Button>
+              )}
+            </div>
+          )}
+          <ErrorNote error={acceptError} />
         </>
       )}
     </section>

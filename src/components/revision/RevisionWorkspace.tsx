@@ -58,7 +58,7 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
         {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
         {current === 'Files' && <FilesTab detail={data} canUpload={participant} />}
         {current === 'History' && <HistoryTab revisionId={r.id} />}
-        {current === 'Explore' && <Suspense fallback={<Busy label="Loading…" />}><ExploreTab detail={data} canRun={roles.includes('designer') && participant} /></Suspense>}
+        {current === 'Explore' && <Suspense fallback={<Busy label="Loading…" />}><ExploreTab detail={data} canRun={roles.includes('designer')} /></Suspense>}
       </div>
     </div>
   );
