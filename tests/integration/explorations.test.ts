@@ -4,6 +4,8 @@ import { createDatabase } from '../../src/lib/db/client';
 import { auditEvents } from '../../src/lib/db/schema';
 import { testEnv } from '../helpers/env';
 import type { HttpSession } from '../helpers/http-session';
+import { readDocx } from '../helpers/docx-text';
+import { downloadRecord } from '../helpers/record-download';
 import { type DemoRole, demoSessions, drive, json, readyDraft, send } from '../helpers/workflow-api';
 
 // Issue 14 through the HTTP API: run, progress, cancel, refusal, save and the bonding choice.
@@ -105,6 +107,12 @@ describe('explorations', () => {
     expect(read.choice.reason).toBe('Lowest losses with standing voltages inside the limit.');
     const events = await db.select().from(auditEvents).where(and(eq(auditEvents.revisionId, revisionId), eq(auditEvents.type, 'bonding.chosen')));
     expect(events).toHaveLength(1);
+    // The record carries the choice, the saved appraisal and the sweep saved above.
+    const record = readDocx((await downloadRecord(sessions.checker, revisionId)).bytes).bodyText;
+    expect(record).toContain('Bonding arrangement chosen: cross-bonded');
+    expect(record).toContain('Lowest losses with standing voltages inside the limit.');
+    expect(record).toContain('Bonding options appraisal');
+    expect(record).toContain('Sensitivity sweep');
   });
 
   it('accepts a joint-bay placement into a new draft with one audited action', async () => {
