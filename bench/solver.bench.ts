@@ -1,5 +1,6 @@
 // npm run bench: timing of the coupled-network solver on reference routes. Not part of the tests.
 import { performance } from 'node:perf_hooks';
+import { readFileSync } from 'node:fs';
 import { calculateBondingStudy } from '../src/lib/calc/bonding/solve-bonding';
 import { buildBondingNetwork } from '../src/lib/calc/bonding/network-model';
 import { caseSources } from '../src/lib/calc/bonding/case-sources';
@@ -66,3 +67,19 @@ const pScale = Math.max(...Array.from({ length: mediumModel.builder.nodeCount },
 for (let n = 0; n < mediumModel.builder.nodeCount; n++) worstPhysical = Math.max(worstPhysical, abs(sub(physicalOurs.voltage(n), physical.voltage(n))) / pScale);
 console.log(`  against mathjs on the physical network (independent assembly): ${worstPhysical.toExponential(2)} relative (target ≤ 1e-8)`);
 console.log(`Peak memory: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MiB resident`);
+
+// Issue 14: a 400-point sensitivity sweep on the large route (20 × 20: soil resistivity × link-box earth resistance), through the exploration runner.
+{
+  const { runExploration } = await import('../src/lib/explore/run-exploration');
+  const limits = JSON.parse(readFileSync(new URL('../tests/fixtures/limit-sets/demo-owner.json', import.meta.url), 'utf8'));
+  const axes = [
+    { input: { kind: 'soil-resistivity' as const }, fromValue: 20, toValue: 2000, points: 20 },
+    { input: { kind: 'earth-resistance' as const, at: 'link-boxes' as const }, fromValue: 1, toValue: 20, points: 20 },
+  ];
+  const t0 = performance.now();
+  let reports = 0;
+  const r = await runExploration({ kind: 'sweep', study: large, limits, axes }, { onProgress: () => reports++ });
+  const ms = performance.now() - t0;
+  const failed = r.kind === 'sweep' ? r.points.filter((p) => p.error).length : -1;
+  console.log(`400-point sweep on the large route (all 8 cases, checked against the demo limits): ${(ms / 1000).toFixed(2)} s on one core (target < 5 s); ${reports} progress reports; ${failed} points not calculable`);
+}

@@ -42,6 +42,8 @@ interface Fixture {
   siteAssetId: string;
   obligationTypeId: string;
   evidenceRecordId: string;
+  exploreDraft: string;
+  explorationId: string;
 }
 
 type Call = (f: Fixture, role: Role) => { method: string; path: string; body?: unknown };
@@ -158,6 +160,16 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   // No published system data puts the matrix's issued study under review: the designer is let through and told so.
   { route: 'POST /api/studies/[studyId]/reviews', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/reviews` }) },
   { route: 'POST /api/studies/[studyId]/reviews/apply', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/studies/${f.issuedStudyId}/reviews/apply`, body: { revisionId: f.draft, version: 1, accept: ['earthing.routeEndOhm'] } }) },
+  { route: 'GET /api/revisions/[revisionId]/explorations', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations` }) },
+  { route: 'POST /api/revisions/[revisionId]/explorations', allowed: ['designer'], status: 202, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations`, body: { kind: 'placement', drumLengthM: 900 } }) },
+  { route: 'GET /api/revisions/[revisionId]/explorations/[explorationId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}` }) },
+  // A finished exploration: the designer passes the role check and is told there is nothing to cancel.
+  { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/cancel', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/cancel` }) },
+  { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/save', allowed: ['designer'], status: 200, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/save` }) },
+  // An appraisal is no placement: the designer passes the role check and is told what to choose.
+  { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/accept', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/accept` }) },
+  { route: 'GET /api/revisions/[revisionId]/bonding-choice', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/bonding-choice` }) },
+  { route: 'PUT /api/revisions/[revisionId]/bonding-choice', allowed: ['designer'], status: 200, call: (f) => ({ method: 'PUT', path: `/api/revisions/${f.exploreDraft}/bonding-choice`, body: { explorationId: f.explorationId, optionKey: 'current', reason: 'Matrix choice.' } }) },
 ];
 
 // Public by design: no session needed. Checked by their own tests.
@@ -192,6 +204,10 @@ describe('role × endpoint matrix', () => {
     const me = await json(await sessions.designer.fetch('/api/me'), 200);
     const file = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('data-sheet', 'svl.pdf', '%PDF-1.4\n% matrix\n')), 201);
     const measurements = await json(await send(sessions.checker, 'POST', `/api/revisions/${inCheck}/files`, uploadForm('measurements', 'readings.csv', 'joint,cable,measured_v,load_a\n1,C1-a,12.0,500\n')), 201);
+    const exploreDraft = (await readyDraft(sessions.designer)).revisionId;
+    const appraisal = await json(await send(sessions.designer, 'POST', `/api/revisions/${exploreDraft}/explorations`, { kind: 'appraisal' }), 202);
+    for (let i = 0; i < 600 && (await json(await sessions.designer.fetch(`/api/revisions/${exploreDraft}/explorations/${appraisal.id}`), 200)).status === 'running'; i++) await new Promise((r) => setTimeout(r, 100));
+    await json(await send(sessions.designer, 'POST', `/api/revisions/${exploreDraft}/explorations/${appraisal.id}/save`), 200);
     const standard = `Matrix standard ${Date.now()} (invented)`;
     const obligationType = await json(await send(sessions.admin, 'POST', '/api/admin/obligation-types', { ownerStandard: standard, name: 'Matrix inspection', appliesTo: 'circuit', firstDueMonths: 0, intervalMonths: 12, basis: 'Invented for the matrix' }), 201);
     const circuit = await json(await send(sessions.designer, 'POST', `/api/projects/${projectId}/assets`, { kind: 'circuit', code: `MXC-${Date.now() % 1000000}`, name: 'Matrix circuit (invented)', ownerStandard: standard, inServiceOn: '2025-01-01' }), 201);
@@ -200,7 +216,7 @@ describe('role × endpoint matrix', () => {
     evidenceForm.delete('kind');
     for (const [k, v] of Object.entries({ obligationTypeId: obligationType.id, doneOn: '2025-06-01', performedBy: 'Matrix contractor (invented)' })) evidenceForm.set(k, v);
     const evidenceRecord = await json(await send(sessions.designer, 'POST', `/api/assets/${circuit.id}/records`, evidenceForm), 201);
-    f = { circuitAssetId: circuit.id, siteAssetId: site.id, obligationTypeId: obligationType.id, evidenceRecordId: evidenceRecord.id, projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
+    f = { exploreDraft, explorationId: appraisal.id, circuitAssetId: circuit.id, siteAssetId: site.id, obligationTypeId: obligationType.id, evidenceRecordId: evidenceRecord.id, projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
   });
 
   for (const entry of matrix) {

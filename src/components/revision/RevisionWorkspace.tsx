@@ -7,9 +7,9 @@ import { Busy, ErrorNote, StateBadge } from '../ui/parts';
 import { LoadedPart } from '../ui/LoadedPart';
 import WorkflowBar from './WorkflowBar';
 import RecordDownload from './RecordDownload';
-import { BondingEditor, CheckValuesTab, ChecklistTab, ExposureEditor, FilesTab, HistoryTab, JsonInputsEditor, RemarksTab, ResultsTab, TAB_CODE } from './workspace-tabs';
+import { BondingEditor, CheckValuesTab, ChecklistTab, ExploreTab, ExposureEditor, FilesTab, HistoryTab, JsonInputsEditor, RemarksTab, ResultsTab, TAB_CODE } from './workspace-tabs';
 
-const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History'] as const;
+const TABS = ['Inputs', 'Inputs as JSON', 'Results', 'Checklist', 'Remarks', 'Check values', 'Files', 'History', 'Explore'] as const;
 type Tab = (typeof TABS)[number];
 
 /** The code a tab needs, fetched ahead when the pointer or focus reaches its button. */
@@ -31,6 +31,8 @@ function tabCode(tab: Tab, kind: string): () => Promise<unknown> {
       return TAB_CODE.files;
     case 'History':
       return TAB_CODE.history;
+    case 'Explore':
+      return TAB_CODE.explore;
   }
 }
 
@@ -75,6 +77,7 @@ function RevisionWorkspace({ revisionId, userId, roles }: { revisionId: string; 
           {current === 'Check values' && <CheckValuesTab detail={data} canAdd={r.state === 'in_check' && r.checkerId === userId} />}
           {current === 'Files' && <FilesTab detail={data} canUpload={participant} />}
           {current === 'History' && <HistoryTab revisionId={r.id} />}
+          {current === 'Explore' && <ExploreTab detail={data} canRun={roles.includes('designer')} />}
         </LoadedPart>
       </div>
     </div>

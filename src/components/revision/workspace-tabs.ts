@@ -13,6 +13,7 @@ export const TAB_CODE = {
   checkValues: () => import('./CheckValuesTab'),
   files: () => import('./FilesTab'),
   history: () => import('./HistoryTab'),
+  explore: () => import('../explore/ExploreTab'),
 };
 
 export const BondingEditor = lazy(TAB_CODE.bondingEditor);
@@ -24,3 +25,4 @@ export const RemarksTab = lazy(TAB_CODE.remarks);
 export const CheckValuesTab = lazy(TAB_CODE.checkValues);
 export const FilesTab = lazy(TAB_CODE.files);
 export const HistoryTab = lazy(TAB_CODE.history);
+export const ExploreTab = lazy(TAB_CODE.explore);

@@ -53,6 +53,9 @@ const STEP_WORDS: Record<string, string> = {
   'obligation-type.added': 'added an obligation type to an owner standard',
   'obligation.recorded': 'recorded an obligation done on an asset',
   'system-data.published': 'published a version of a site\'s system data',
+  'exploration.saved': 'saved a design exploration with {rev}',
+  'bonding.chosen': 'chose the bonding arrangement of {rev}',
+  'exploration.placement-accepted': 'started a new draft from a suggested joint-bay placement',
   'study.needs-review': 'marked {rev} as needing review after new system data',
 };
 

@@ -1,4 +1,5 @@
 import { and, asc, eq, inArray, like, lte } from 'drizzle-orm';
+import { gatherExplorations } from './record-explorations';
 import type { Database } from '../db/client';
 import { auditEvents, documentNumberPatterns, limitSetVersions, limitSets, revisionFiles, revisions, users } from '../db/schema';
 import { revisionDetail } from '../db/revisions.repo';
@@ -49,6 +50,7 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
     : [];
   const numberOf = new Map(history.map((h) => [h.id, h.number]));
   const changes = await compareRevisions(db, revisionId, 'previous');
+  const explorations = await gatherExplorations(db, revisionId);
 
   return xmlSafe({
     draft: !['issued', 'superseded'].includes(revision.state),
@@ -75,6 +77,7 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
       append: (await recordSettingsOf(db)).appendValidation,
       appUrl: appUrl ?? null,
     } satisfies RecordValidation,
+    ...(explorations.choice || explorations.saved.length ? { explorations } : {}),
     changes: changes.from ? { fromNumber: changes.from.number, inputChanges: changes.inputChanges, worstChanges: changes.worstChanges.map((w) => w.text), verdictChanges: changes.verdictChanges.map((v) => v.text) } : null,
   });
 }

@@ -14,6 +14,7 @@ import { assumptions } from './record-assumptions';
 import { eventSentence } from './event-sentences';
 import { validationBlocks } from './record-validation';
 import { criterionSection } from '../methods/method-reference';
+import { explorationBlocks } from './record-explorations';
 
 const ROLE_WORD = { designer: 'Designed', checker: 'Checked', approver: 'Approved' } as const;
 
@@ -66,6 +67,7 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
     heading(text.resultsHeading),
     ...(data.results ? resultBlocks(data.results) : [body('The revision has not been calculated.', { italic: true })]),
     ...plotBlocks(data),
+    ...explorationBlocks(data.explorations),
     heading(text.checklistHeading),
     ...(computed.length
       ? [

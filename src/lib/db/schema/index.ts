@@ -11,3 +11,4 @@ export * from './study-summaries';
 export * from './document-numbers';
 export * from './record-settings';
 export * from './register';
+export * from './explorations';

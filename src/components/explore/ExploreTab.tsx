@@ -1,0 +1,267 @@
+import { useState } from 'react';
+import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import type { RevisionDetail } from '../../lib/queries/revisions.queries';
+import type { Appraisal, SweepInput, Tornado } from '../../lib/calc/explore';
+import type { PlacementResult, SweepResult } from '../../lib/explore/run-exploration';
+import { api } from '../../lib/queries/api-client';
+import { formatNumber } from '../../lib/format';
+import { Button, Caution, ErrorNote } from '../ui/parts';
+import { useExploration, type ExplorationRow } from './use-exploration';
+
+// Design exploration tab: bonding options side by side, a sensitivity sweep with its progress
+// and chart, and a tornado of the inputs. Charts drawn with recharts as RouteProfileChart does.
+
+const INPUTS: Array<{ key: string; label: string; input: SweepInput; from: number; to: number }> = [
+  { key: 'soil', label: 'Soil resistivity (Ω·m)', input: { kind: 'soil-resistivity' }, from: 20, to: 2000 },
+  { key: 'spacing', label: 'Cable spacing (m)', input: { kind: 'phase-spacing' }, from: 0.1, to: 0.4 },
+  { key: 'depth', label: 'Laying depth (m)', input: { kind: 'depth' }, from: 0.8, to: 2 },
+  { key: 'load', label: 'Largest load current (A)', input: { kind: 'load-current' }, from: 200, to: 2000 },
+  { key: 'fault', label: 'Largest fault current (A)', input: { kind: 'fault-current' }, from: 5000, to: 63000 },
+  { key: 'linkbox', label: 'Earth resistance at link boxes (Ω)', input: { kind: 'earth-resistance', at: 'link-boxes' }, from: 1, to: 30 },
+];
+
+function Progress({ row, onCancel, canCancel }: { row: ExplorationRow<unknown>; onCancel: () => void; canCancel: boolean }) {
+  if (row.status !== 'running') return row.status === 'failed' ? <p role="alert" className="text-sm text-fail">{row.error}</p> : row.status === 'cancelled' ? <p className="text-sm text-ink-soft">Cancelled.</p> : null;
+  return (
+    <div className="flex items-center gap-3">
+      <progress data-testid="sweep-progress" max={row.total} value={row.done} className="h-3 w-64" aria-label="Grid points calculated" />
+      <span className="text-sm" data-testid="sweep-count">{row.done} of {row.total} points</span>
+      {canCancel && <Button tone="danger" onClick={onCancel}>Cancel</Button>}
+    </div>
+  );
+}
+
+/** The next round axis top: 1, 2, 2.5 or 5 times a power of ten. */
+function niceCeiling(v: number): number {
+  if (!(v > 0)) return 1;
+  const p = 10 ** Math.floor(Math.log10(v));
+  return [1, 2, 2.5, 5, 10].map((k) => k * p).find((c) => c >= v)!;
+}
+
+const fmt = (v: number | null | undefined, digits = 3) => (v === null || v === undefined ? '—' : formatNumber(Number(v.toPrecision(digits))));
+
+function AppraisalPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
+  const job = useExploration<Appraisal>(revisionId);
+  const [choice, setChoice] = useState('');
+  const [reason, setReason] = useState('');
+  const [chosen, setChosen] = useState<string | null>(null);
+  const [choiceError, setChoiceError] = useState<unknown>(null);
+  const rows = job.row?.result?.rows ?? [];
+  const chart = rows.filter((r) => r.figures).map((r) => ({ name: r.key, standing: r.figures!.worstStandingV ?? 0, losses: r.figures!.lossesKwPerKm ?? 0 }));
+  return (
+    <section className="space-y-3" aria-labelledby="appraisal-h">
+      <h2 id="appraisal-h" className="text-lg font-semibold">Bonding options</h2>
+      {canRun && <Button onClick={() => job.start({ kind: 'appraisal' })} disabled={job.row?.status === 'running'}>Appraise the bonding options</Button>}
+      <ErrorNote error={job.error} />
+      {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
+      {rows.length > 0 && (
+        <>
+          <table className="w-full text-sm" data-testid="options-table">
+            <thead><tr className="text-left"><th>Option</th><th>Standing V to local earth</th><th>λ1</th><th>Sheath losses kW/km</th><th>Fault V on sheath</th><th>Fault V across joint</th><th>SVL duty</th><th>Link boxes</th><th>Worst margin</th></tr></thead>
+            <tbody>
+              {rows.map((r) => (
+                <tr key={r.key} className={r.isCurrent ? 'bg-copper-light font-semibold' : ''}>
+                  <td>{r.label}{r.isCurrent ? ' (current)' : ''}{r.assumptions.length ? <span title={r.assumptions.join(' ')}> *</span> : null}</td>
+                  {r.figures ? (
+                    <>
+                      <td>{fmt(r.figures.worstStandingV)} V</td><td>{fmt(r.figures.lossFactor)}</td><td>{fmt(r.figures.lossesKwPerKm)}</td><td>{fmt(r.figures.faultSheathV)} V</td><td>{fmt(r.figures.jointFaultV)} V</td>
+                      <td>{r.figures.svlDutyPct === null ? 'no SVLs' : `${fmt(r.figures.svlDutyPct)} %`}</td><td>{r.figures.linkBoxes}</td><td className={r.figures.failing.length ? 'text-fail' : ''}>{fmt(r.figures.worstMarginPct)} %</td>
+                    </>
+                  ) : <td colSpan={8} className="text-ink-soft">{r.notAvailable}</td>}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <p className="text-xs text-ink-soft">* assumptions of the option: hover to read them. Options are derived from this revision's route, circuits and cases; nothing else changes.</p>
+          <div className="h-64 w-full" data-testid="options-chart">
+            <ResponsiveContainer>
+              <BarChart data={chart} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+                <CartesianGrid stroke="#e4dfd4" /><XAxis dataKey="name" /><YAxis yAxisId="v" unit=" V" /><YAxis yAxisId="kw" orientation="right" unit=" kW/km" />
+                <Tooltip /><Legend verticalAlign="top" />
+                <Bar yAxisId="v" dataKey="standing" name="standing voltage to local earth" fill="#a4522a" isAnimationActive={false} />
+                <Bar yAxisId="kw" dataKey="losses" name="sheath losses" fill="#1f5f8b" isAnimationActive={false} />
+              </BarChart>
+            </ResponsiveContainer>
+          </div>
+          {canRun && job.row?.status === 'done' && (
+            <div className="flex flex-wrap items-end gap-2">
+              {!job.row.savedAt && <Button tone="plain" onClick={job.save}>Save the appraisal with the revision</Button>}
+              {job.row.savedAt && (
+                <>
+                  <label className="text-sm">Chosen option <select value={choice} onChange={(e) => setChoice(e.target.value)} className="ml-1 border border-rule"><option value="">—</option>{rows.filter((r) => r.figures).map((r) => <option key={r.key} value={r.key}>{r.label}</option>)}</select></label>
+                  <label className="text-sm">Reason <input value={reason} onChange={(e) => setReason(e.target.value)} className="ml-1 w-80 border border-rule px-1" /></label>
+                  <Button onClick={async () => { setChoiceError(null); try { await api(`/api/revisions/${revisionId}/bonding-choice`, { method: 'PUT', body: { explorationId: job.row!.id, optionKey: choice, reason } }); setChosen(choice); } catch (e) { setChoiceError(e); } }}>Record the choice</Button>
+                </>
+              )}
+              {chosen && <span className="text-sm">Choice recorded: {chosen}.</span>}
+              <ErrorNote error={choiceError} />
+            </div>
+          )}
+        </>
+      )}
+    </section>
+  );
+}
+
+function SweepChart({ result }: { result: SweepResult }) {
+  const criteria = [...new Set(result.points.flatMap((p) => (p.quantities ?? []).map((q) => q.criterion)))];
+  const [criterion, setCriterion] = useState<string>(criteria.includes('standing-voltage-normal') ? 'standing-voltage-normal' : criteria[0]);
+  const axis = result.axes[0];
+  const rows = result.points.filter((p) => p.values.slice(1).every((v, k) => v === result.points[0].values[k + 1]));
+  const data = rows.map((p) => ({ x: p.values[0], value: p.quantities?.find((q) => q.criterion === criterion)?.value ?? null }));
+  const limit = rows.flatMap((p) => p.quantities ?? []).find((q) => q.criterion === criterion)?.limit ?? null;
+  const fail = result.firstFailures.find((f) => f.criterion === criterion);
+  const unit = rows.flatMap((p) => p.quantities ?? []).find((q) => q.criterion === criterion)?.unit ?? '';
+  return (
+    <div className="space-y-2">
+      <label className="text-sm">Checked quantity <select value={criterion} onChange={(e) => setCriterion(e.target.value)} className="ml-1 border border-rule">{criteria.map((c) => <option key={c}>{c}</option>)}</select></label>
+      {result.axes.length > 1 && <p className="text-xs text-ink-soft">Plotted along the first input at the first value of the second; the table in the record lists every point.</p>}
+      <div className="h-72 w-full" data-testid="sweep-chart">
+        <ResponsiveContainer>
+          <LineChart data={data} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
+            <CartesianGrid stroke="#e4dfd4" />
+            <XAxis dataKey="x" type="number" domain={['dataMin', 'dataMax']} label={{ value: axis.label, position: 'insideBottom', offset: -10 }} />
+            <YAxis unit={unit ? ` ${unit}` : undefined} domain={[0, (m: number) => niceCeiling(Math.max(m, (limit ?? 0)) * 1.1)]} />
+            <Tooltip />
+            {limit !== null && <ReferenceLine y={limit} stroke="#b3261e" strokeDasharray="8 6" label={{ value: `limit ${limit} ${unit}`, fill: '#b3261e', position: 'insideTopLeft' }} />}
+            {fail && <ReferenceLine x={fail.values[0]} stroke="#b3261e" label={{ value: `first fails at ${formatNumber(fail.values[0])}`, fill: '#b3261e', position: 'insideTopRight' }} />}
+            {axis.baseValue !== null && <ReferenceLine x={axis.baseValue} stroke="#4a5668" strokeDasharray="2 4" label={{ value: 'current design', position: 'insideBottomLeft' }} />}
+            <Line dataKey="value" name={criterion} stroke="#a4522a" strokeWidth={2} dot={{ r: 2 }} isAnimationActive={false} connectNulls={false} />
+          </LineChart>
+        </ResponsiveContainer>
+      </div>
+      {!fail && <p className="text-sm" data-testid="sweep-verdict">This check passes at every grid point.</p>}
+      {fail && <p className="text-sm text-fail" data-testid="sweep-verdict">This check first fails at {formatNumber(fail.values[0])} ({axis.label}).</p>}
+    </div>
+  );
+}
+
+function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
+  const job = useExploration<SweepResult>(revisionId);
+  const [key, setKey] = useState(INPUTS[0].key);
+  const chosen = INPUTS.find((i) => i.key === key)!;
+  const [from, setFrom] = useState(String(chosen.from));
+  const [to, setTo] = useState(String(chosen.to));
+  const [points, setPoints] = useState('20');
+  return (
+    <section className="space-y-3" aria-labelledby="sweep-h">
+      <h2 id="sweep-h" className="text-lg font-semibold">Sensitivity sweep</h2>
+      {canRun && (
+        <form aria-label="Sweep settings" className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); job.start({ kind: 'sweep', axes: [{ input: chosen.input, fromValue: Number(from), toValue: Number(to), points: Number(points) }] }); }}>
+          <label className="text-sm">Input <select aria-label="Input" value={key} onChange={(e) => { const n = INPUTS.find((i) => i.key === e.target.value)!; setKey(n.key); setFrom(String(n.from)); setTo(String(n.to)); }} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
+          <label className="text-sm">From <input aria-label="From" value={from} onChange={(e) => setFrom(e.target.value)} className="w-24 border border-rule px-1" /></label>
+          <label className="text-sm">To <input aria-label="To" value={to} onChange={(e) => setTo(e.target.value)} className="w-24 border border-rule px-1" /></label>
+          <label className="text-sm">Points <input aria-label="Points" value={points} onChange={(e) => setPoints(e.target.value)} className="w-20 border border-rule px-1" /></label>
+          <Button type="submit" disabled={job.row?.status === 'running'}>Run the sweep</Button>
+        </form>
+      )}
+      <ErrorNote error={job.error} />
+      {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
+      {job.row?.status === 'done' && job.row.result && (
+        <>
+          <SweepChart result={job.row.result} />
+          <p className="text-xs text-ink-soft">Inputs hash {job.row.inputsHash.slice(0, 12)}…, engine {job.row.engineVersion}, {job.row.total} points.</p>
+          {canRun && (job.row.savedAt ? <p className="text-sm" data-testid="sweep-saved">Saved with the revision.</p> : <Button tone="plain" onClick={job.save}>Save the sweep with the revision</Button>)}
+        </>
+      )}
+    </section>
+  );
+}
+
+function TornadoPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
+  const job = useExploration<Tornado>(revisionId);
+  const [pct, setPct] = useState('20');
+  const t = job.row?.result;
+  const data = (t?.bars ?? []).map((b) => ({ name: b.label, low: b.lowMarginPct === null || t!.baseMarginPct === null ? 0 : b.lowMarginPct - t!.baseMarginPct, high: b.highMarginPct === null || t!.baseMarginPct === null ? 0 : b.highMarginPct - t!.baseMarginPct }));
+  return (
+    <section className="space-y-3" aria-labelledby="tornado-h">
+      <h2 id="tornado-h" className="text-lg font-semibold">Tornado: effect on the worst margin</h2>
+      {canRun && (
+        <div className="flex items-end gap-2">
+          <label className="text-sm">± range, % of each input <input value={pct} onChange={(e) => setPct(e.target.value)} className="w-16 border border-rule px-1" /></label>
+          <Button onClick={() => job.start({ kind: 'tornado', inputs: [{ input: { kind: 'soil-resistivity' }, plusMinusPct: Number(pct) }, { input: { kind: 'load-current' }, plusMinusPct: Number(pct) }, { input: { kind: 'fault-current' }, plusMinusPct: Number(pct) }, { input: { kind: 'earth-resistance', at: 'link-boxes' }, plusMinusPct: Number(pct) }, { input: { kind: 'phase-spacing' }, plusMinusPct: Number(pct) }, { input: { kind: 'depth' }, plusMinusPct: Number(pct) }] })}>Rank the inputs</Button>
+        </div>
+      )}
+      <ErrorNote error={job.error} />
+      {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
+      {t && (
+        <div className="h-72 w-full" data-testid="tornado-chart">
+          <p className="text-sm">Worst margin of the current design: {fmt(t.baseMarginPct)} %. Bars: change in percentage points with each input at its low and high value.</p>
+          <ResponsiveContainer>
+            <BarChart layout="vertical" data={data} stackOffset="sign" margin={{ top: 10, right: 20, bottom: 20, left: 180 }}>
+              <CartesianGrid stroke="#e4dfd4" /><XAxis type="number" unit=" pp" /><YAxis type="category" dataKey="name" width={170} />
+              <Tooltip /><Legend verticalAlign="top" /><ReferenceLine x={0} stroke="#16202e" />
+              <Bar dataKey="low" name="input low" fill="#1f5f8b" stackId="t" isAnimationActive={false} />
+              <Bar dataKey="high" name="input high" fill="#a4522a" stackId="t" isAnimationActive={false} />
+            </BarChart>
+          </ResponsiveContainer>
+        </div>
+      )}
+    </section>
+  );
+}
+
+function PlacementPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
+  const job = useExploration<PlacementResult>(revisionId);
+  const [drum, setDrum] = useState('800');
+  const [windows, setWindows] = useState('');
+  const [acceptError, setAcceptError] = useState<unknown>(null);
+  const p = job.row?.result;
+  const parseWindows = () =>
+    windows.split(/[;\n]/).map((w) => w.trim()).filter(Boolean).map((w) => {
+      const [fromM, toM] = w.split(/[-–]/).map((x) => Number(x.trim()));
+      return { fromM, toM };
+    });
+  return (
+    <section className="space-y-3" aria-labelledby="placement-h">
+      <h2 id="placement-h" className="text-lg font-semibold">Joint-bay placement</h2>
+      {canRun && (
+        <form aria-label="Placement settings" className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); job.start({ kind: 'placement', drumLengthM: Number(drum), windows: parseWindows() }); }}>
+          <label className="text-sm">Drum length limit (m) <input aria-label="Drum length limit (m)" value={drum} onChange={(e) => setDrum(e.target.value)} className="w-24 border border-rule px-1" /></label>
+          <label className="text-sm">Windows for joint bays, chainage m (e.g. 400-600; 900-1100; empty: anywhere) <input aria-label="Windows" value={windows} onChange={(e) => setWindows(e.target.value)} className="w-80 border border-rule px-1" /></label>
+          <Button type="submit" disabled={job.row?.status === 'running'}>Suggest joint positions</Button>
+        </form>
+      )}
+      <ErrorNote error={job.error} />
+      {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
+      {p && (
+        <>
+          <p className="text-sm">Current design: worst standing voltage {fmt(p.current.worstStandingV)} V, λ1 {fmt(p.current.lossFactor)}. Suggested: {p.suggested ? `${fmt(p.suggested.worstStandingV)} V, λ1 ${fmt(p.suggested.lossFactor)}` : 'nothing fits the windows and drum length'}.</p>
+          <table className="w-full text-sm" data-testid="placement-table">
+            <thead><tr className="text-left"><th>Major section</th><th>Current minor lengths (m)</th><th>Suggested (m)</th><th>Residual share now</th><th>Suggested</th><th>Notes</th></tr></thead>
+            <tbody>
+              {p.placement.majorSections.map((m) => (
+                <tr key={m.sectionIds.join()}>
+                  <td>{m.sectionIds.join(', ')}</td><td>{m.currentLengthsM.map((v) => fmt(v, 5)).join(' / ')}</td><td>{m.suggestedLengthsM ? m.suggestedLengthsM.map((v) => fmt(v, 5)).join(' / ') : '—'}</td>
+                  <td>{fmt(m.currentImbalancePct)} %</td><td>{m.suggestedImbalancePct === null ? '—' : `${fmt(m.suggestedImbalancePct)} %`}</td><td>{[...m.currentViolations, m.reason ?? ''].filter(Boolean).join(' ') || '—'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          {canRun && job.row?.status === 'done' && (
+            <div className="flex flex-wrap gap-2">
+              {job.row.savedAt ? <p className="text-sm">Saved with the revision.</p> : <Button tone="plain" onClick={job.save}>Save the placement with the revision</Button>}
+              {p.placement.suggestedStudy && (
+                <Button onClick={async () => { setAcceptError(null); try { const next = await api<{ id: string }>(`/api/revisions/${revisionId}/explorations/${job.row!.id}/accept`, { method: 'POST' }); window.location.assign(`/revisions/${next.id}`); } catch (e) { setAcceptError(e); } }}>Accept into a new draft</Button>
+              )}
+            </div>
+          )}
+          <ErrorNote error={acceptError} />
+        </>
+      )}
+    </section>
+  );
+}
+
+export default function ExploreTab({ detail, canRun }: { detail: RevisionDetail; canRun: boolean }) {
+  if (detail.study.kind !== 'bonding') return <p className="text-sm text-ink-soft">Design exploration is for bonding studies.</p>;
+  return (
+    <div className="space-y-8">
+      <Caution />
+      <AppraisalPanel revisionId={detail.revision.id} canRun={canRun} />
+      <SweepPanel revisionId={detail.revision.id} canRun={canRun} />
+      <TornadoPanel revisionId={detail.revision.id} canRun={canRun} />
+      <PlacementPanel revisionId={detail.revision.id} canRun={canRun} />
+    </div>
+  );
+}

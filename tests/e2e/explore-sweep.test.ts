@@ -1,0 +1,48 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { appUrl, browserAs, hydrated, screenshot } from '../helpers/browser-session';
+import { DEMO, demoSessions, readyDraft } from '../helpers/workflow-api';
+
+// Issue 14: the designer runs a sensitivity sweep in the Explore tab, sees the progress bar
+// with the count done and the chart with the limit line, and saves it with the revision.
+
+describe('design exploration in Chromium', () => {
+  let page: Page;
+  let close: () => Promise<void>;
+  let errors: string[];
+  let revisionId: string;
+
+  beforeAll(async () => {
+    const sessions = await demoSessions();
+    ({ revisionId } = await readyDraft(sessions.designer, 'fernhollow-cross-bonded', 'B'));
+    ({ page, close, errors } = await browserAs(DEMO.designer));
+  });
+  afterAll(async () => close?.());
+
+  it('runs a sweep with a progress bar, draws the chart and saves it', async () => {
+    await page.goto(`${appUrl}/revisions/${revisionId}`);
+    await hydrated(page);
+    await page.getByRole('tab', { name: 'Explore' }).click();
+    const form = page.getByRole('form', { name: 'Sweep settings' });
+    await form.getByLabel('Input', { exact: true }).selectOption({ label: 'Largest load current (A)' });
+    await form.getByLabel('From', { exact: true }).fill('200');
+    await form.getByLabel('To', { exact: true }).fill('4000');
+    await form.getByLabel('Points', { exact: true }).fill('200');
+    await form.getByRole('button', { name: 'Run the sweep' }).click();
+    const progress = page.getByTestId('sweep-progress');
+    await progress.waitFor();
+    expect(await progress.getAttribute('max')).toBe('200');
+    await expect(page.getByTestId('sweep-count').textContent()).resolves.toMatch(/^\d+ of 200 points$/);
+    await page.getByTestId('sweep-chart').waitFor({ timeout: 60_000 });
+    await page.getByTestId('sweep-chart').locator('.recharts-line').first().waitFor();
+    // The limit line of the standing voltage (demo owner limit, 65 V) is drawn on the chart.
+    await page.getByTestId('sweep-chart').getByText(/^limit 65 V/).waitFor();
+    await expect(page.getByTestId('sweep-verdict').textContent()).resolves.toMatch(/first fails at|passes at every grid point/);
+    await screenshot(page, 'explore-sweep');
+    await page.getByRole('button', { name: 'Save the sweep with the revision' }).click();
+    await page.getByTestId('sweep-saved').waitFor();
+    const list = await page.evaluate(async (id) => (await fetch(`/api/revisions/${id}/explorations`)).json(), revisionId);
+    expect(list.explorations.filter((e: { kind: string; savedAt: string | null }) => e.kind === 'sweep' && e.savedAt)).toHaveLength(1);
+    expect(errors).toEqual([]);
+  });
+});
