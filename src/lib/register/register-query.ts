@@ -46,7 +46,6 @@ const SORT_KEYS: Record<RegisterQuery['sort'], SQL> = {
  */
 function registerRows(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'search'>, today: string) {
   const soon = addDays(today, DUE_SOON_DAYS);
-  const search = q.search ? `%${q.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
   return sql`
     select a.id, a.project_id, p.code as project_code, a.kind, a.code, a.name,
       coalesce(iss.issued, '') as issued, coalesce(iss.issued_count, 0) as issued_count, iss.worst_margin_pct,
@@ -77,7 +76,13 @@ function registerRows(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'sea
         min(ao.next_due_on) as next_due_on
       from asset_obligations ao where ao.asset_id = a.id
     ) ob on true
-    where a.project_id in (${sql.join(projectIds.map((id) => sql`${id}::uuid`), sql`, `)})
+    where ${assetFilter(projectIds, q)}`;
+}
+
+/** The conditions on the assets themselves (projects, kind, search): no per-asset figures needed. */
+function assetFilter(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'search'>) {
+  const search = q.search ? `%${q.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
+  return sql`a.project_id in (${sql.join(projectIds.map((id) => sql`${id}::uuid`), sql`, `)})
       ${q.kind ? sql`and a.kind = ${q.kind}` : sql``}
       ${search ? sql`and (a.code ilike ${search} or a.name ilike ${search})` : sql``}`;
 }
@@ -152,7 +157,8 @@ export async function listRegister(db: Database, projectIds: string[], q: Regist
   const base = registerRows(projectIds, q, today);
   const [page, count] = await Promise.all([
     db.execute(sql`select r.*, ${statusRank} as rank, (${key})::text as sort_key from (${base}) r where true ${statusFilter} ${position} order by ${key} ${dir}, r.id ${dir} limit ${q.pageSize + 1}`),
-    db.execute(sql`select count(*)::int as total from (${base}) r where true ${statusFilter}`),
+    // Without a status filter the total needs no per-asset figures: count the assets alone.
+    q.status ? db.execute(sql`select count(*)::int as total from (${base}) r where true ${statusFilter}`) : db.execute(sql`select count(*)::int as total from assets a where ${assetFilter(projectIds, q)}`),
   ]);
   const raw = page.rows as unknown as RawRow[];
   const more = raw.length > q.pageSize;
