@@ -202,6 +202,12 @@ exec_logged() {
 build_app() {
   log "building the app for port $SHEATHWISE_PORT"
   (cd "$ROOT" && exec_logged "${BUILD_LOG:-}" node_modules/.bin/astro build) || { log "build failed"; return 1; }
+  # The compute worker threads' bundle (dist/workers), after astro build has emptied dist/.
+  if [ -n "${BUILD_LOG:-}" ]; then
+    (cd "$ROOT" && node scripts/build-workers.mjs >>"$BUILD_LOG" 2>&1)
+  else
+    (cd "$ROOT" && node scripts/build-workers.mjs)
+  fi || { log "building the compute worker failed"; return 1; }
 }
 
 # migrate_and_seed [--seed]: applies drizzle/ migrations, then the demo scenario once.

@@ -59,7 +59,17 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
     if (early && early.kind !== 'StepRefused') throw new AppError(early.kind, early.message);
     await reauthenticate(s, actor, { ...signing, password: req.password });
   }
-  const resultsCurrent = RECOMPUTE.has(req.step) && acceptsInState(before.revision.state, `revision.${req.step}`) ? resultsReproduce(before.revision, before.study) : true;
+  let resultsCurrent = true;
+  if (RECOMPUTE.has(req.step) && acceptsInState(before.revision.state, `revision.${req.step}`)) {
+    // The other guards are cheap reads: a step they refuse is refused before the recomputation
+    // (taking results as current), with the same message the locked check would give.
+    const roles = (actor.projectRoles[before.project.id] ?? []) as WorkflowRole[];
+    const context = { designerId: before.revision.designerId, checkerId: before.revision.checkerId, approverId: before.revision.approverId };
+    const facts = await revisionFacts(s.db, before.revision, { resultsCurrent: true, reason: req.reason });
+    const early = refusalText(before.revision.state, context, { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts });
+    if (early) throw new AppError(early.kind, early.message);
+    resultsCurrent = await resultsReproduce(s.db, before.revision, before.study);
+  }
 
   return withLockedRevision(s, revisionId, async ({ revision, study, project }, tx, sqlExecutor) => {
     if (revision.version !== req.version) throw new AppError('Conflict');

@@ -9,3 +9,4 @@ export * from './files';
 export * from './cable-types';
 export * from './study-summaries';
 export * from './document-numbers';
+export * from './recomputations';
