@@ -51,6 +51,9 @@ function computePool(): Piscina | null {
 /** Whether tasks go to worker threads in this process. */
 export const computesInWorkers = () => computePool() !== null;
 
+/** How many tasks run at once: the pool's threads, or one on the request thread. */
+export const computeParallelism = () => computePool()?.options.maxThreads ?? 1;
+
 /** Runs a task in the pool (or here without one); a catalogue error from the task is thrown as an AppError. */
 export async function compute<K extends ComputeTask['task']>(task: Extract<ComputeTask, { task: K }>): Promise<ComputeOutput[K]> {
   const p = computePool();

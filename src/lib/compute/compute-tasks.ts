@@ -7,6 +7,8 @@ import { parseStudyInputs } from '../studies/study-input';
 import { compactResults } from '../studies/stored-results';
 import { renderRecord } from '../records/record-document';
 import type { RecordData } from '../records/record-data';
+import type { AuditScope } from '../audit/audit-scope';
+import { type RangeReport, verifyAuditRange } from '../audit/audit-verify-range';
 
 // The CPU-heavy work of the server, as plain functions of cloneable data: a worker thread runs
 // them (compute.worker.ts), or the request thread when no worker is at hand (compute-pool.ts).
@@ -19,13 +21,15 @@ export type ComputeTask =
    * `reuse`, results already stored for these inputs are kept instead when they hash (in compact
    * form) to what a fresh calculation of these inputs with this engine gave.
    */
-  | { task: 'calculate'; studyKind: StudyKind; rawInputs: unknown; limits: LimitSet; reuse?: { stored: StudyResults; knownHash: string } }
+  | { task: 'calculate'; studyKind: StudyKind; rawInputs: unknown; limits: LimitSet; reuse?: { storedJson: string; knownHash: string } }
   /** Calculate again and give the hashes of the results as stored (compact) and in full. */
   | { task: 'reproduce'; studyKind: StudyKind; rawInputs: unknown }
   /** The route profile of one bonding case, recomputed from the inputs. */
   | { task: 'profile'; studyKind: StudyKind; rawInputs: unknown; caseId: string }
   /** The calculation record as .docx bytes. */
-  | { task: 'record'; data: RecordData };
+  | { task: 'record'; data: RecordData }
+  /** One stretch of the audit chain (afterId < id ≤ upToId), read on its own connection. */
+  | { task: 'verifyAudit'; databaseUrl: string; scope: AuditScope; afterId: number; upToId: number };
 
 /** A catalogue error carried across the thread boundary (a class does not survive cloning). */
 export interface TaskError {
@@ -36,8 +40,12 @@ export interface TaskError {
 
 export interface Calculated {
   inputs: Study;
-  /** What is stored: compact (stored-results.ts), or the stored results when kept. */
-  results: StudyResults;
+  /**
+   * What is stored, as JSON text: compact (stored-results.ts), or the stored results when kept.
+   * Text crosses the thread boundary as one copy, where an object graph of megabytes would be
+   * rebuilt (and then serialised again for the database) on the request thread.
+   */
+  resultsJson: string;
   computed: ChecklistItem[];
   /** SHA-256 of the canonical JSON of `results` in compact form. */
   resultsHash: string;
@@ -57,6 +65,7 @@ export type ComputeOutput = {
   reproduce: Reproduced;
   profile: CaseResult['profile'] | null;
   record: Uint8Array;
+  verifyAudit: RangeReport;
 };
 
 const hashOf = (value: unknown) => sha256Hex(canonicalJson(value));
@@ -79,13 +88,16 @@ async function run(t: ComputeTask): Promise<unknown> {
     case 'calculate': {
       const inputs = parseStudyInputs(t.rawInputs, t.studyKind);
       // The checks read worst values and points, never the route profile compact results lack.
-      if (t.reuse && hashOf(compactResults(t.reuse.stored)) === t.reuse.knownHash) {
-        return { inputs, results: t.reuse.stored, computed: evaluateCompliance(inputs, t.reuse.stored, t.limits), resultsHash: t.reuse.knownHash, fresh: false } satisfies Calculated;
+      if (t.reuse) {
+        const stored = JSON.parse(t.reuse.storedJson) as StudyResults;
+        if (hashOf(compactResults(stored)) === t.reuse.knownHash) {
+          return { inputs, resultsJson: t.reuse.storedJson, computed: evaluateCompliance(inputs, stored, t.limits), resultsHash: t.reuse.knownHash, fresh: false } satisfies Calculated;
+        }
       }
       const full = calculateStudy(inputs);
       const computed = evaluateCompliance(inputs, full, t.limits);
       const results = compactResults(full);
-      return { inputs, results, computed, resultsHash: hashOf(results), fresh: true } satisfies Calculated;
+      return { inputs, resultsJson: JSON.stringify(results), computed, resultsHash: hashOf(results), fresh: true } satisfies Calculated;
     }
     case 'reproduce': {
       const full = calculateStudy(parseStudyInputs(t.rawInputs, t.studyKind));
@@ -97,6 +109,8 @@ async function run(t: ComputeTask): Promise<unknown> {
     }
     case 'record':
       return new Uint8Array(await renderRecord(withProfiles(t.data)));
+    case 'verifyAudit':
+      return verifyAuditRange(t.databaseUrl, t.scope, t.afterId, t.upToId);
   }
 }
 

@@ -9,11 +9,11 @@ import { appendAudit } from '../audit/audit-log';
 import { inputsHash } from '../canonical-json';
 import { jsonDiff } from '../json-diff';
 import { describeInputChanges } from '../compare/input-changes';
-import { ENGINE_VERSION, type StudyResults } from '../calc';
+import { ENGINE_VERSION } from '../calc';
 import { compute } from '../compute/compute-pool';
 import { knownRecomputation, rememberRecomputation } from './recomputations.repo';
 import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '../workflow/revision.machine';
-import { latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
+import { latestLimitSetVersion, loadRevisionScope, loadStudyScope, revisionForCalculation } from '../db/revisions.repo';
 import { checklistRows } from './checklist-rows';
 import { parseStudyInputs } from './study-input';
 import type { Database } from '../db/client';
@@ -88,25 +88,26 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
  */
 export async function calculateRevision(s: AppServices, actor: SessionUser, revisionId: string) {
   // The cheap refusals (state, designer) come first; the calculation runs outside the lock, and
-  // the version check under the lock proves the inputs are still the ones calculated.
-  const { revision, study } = await loadRevisionScope(s.db, revisionId);
+  // the version check under the lock proves the inputs are still the ones calculated. The
+  // results travel as JSON text: the request thread never parses or serialises them.
+  const { revision, study, resultsJson: storedJson } = await revisionForCalculation(s.db, revisionId);
   assertEditableBy(actor, revision);
   const limits = await latestLimitSetVersion(s.db, study.limitSetId);
   const [{ name }] = await s.db.select({ name: limitSets.name }).from(limitSets).where(eq(limitSets.id, study.limitSetId));
   const limitSet = { name, version: limits.version, limits: limits.limits };
-  const sameInputs = revision.results !== null && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
+  const sameInputs = storedJson !== null && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
   const knownHash = sameInputs ? await knownRecomputation(s.db, revision.inputsHash) : null;
-  const reuse = knownHash ? { stored: revision.results as StudyResults, knownHash } : undefined;
-  const { inputs, results, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
+  const reuse = storedJson && knownHash ? { storedJson, knownHash } : undefined;
+  const { inputs, resultsJson, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
   return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
     assertEditableBy(actor, current);
     if (current.version !== revision.version) throw new AppError('Conflict');
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
       .update(revisions)
-      .set({ ...(fresh ? { results } : {}), resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .set({ ...(fresh ? { results: sql`${resultsJson}::jsonb` } : {}), resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
       .where(eq(revisions.id, revisionId))
-      .returning();
+      .returning({ id: revisions.id, version: revisions.version, engineVersion: revisions.engineVersion, inputsHash: revisions.inputsHash });
     if (fresh) await rememberRecomputation(tx, revision.inputsHash, resultsHash);
     await tx.delete(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const rows = checklistRows(revisionId, computed, limits.manualItems, existing, inputs);
