@@ -215,8 +215,12 @@ migrate_and_seed() {
   (cd "$ROOT" && node_modules/.bin/tsx scripts/migrate.ts "$@")
 }
 
+# With SHEATHWISE_PROCESSES above 1, that many server processes (ports SHEATHWISE_PORT+1 …)
+# behind the local reverse proxy on SHEATHWISE_PORT (scripts/cluster.mjs).
 start_server() {
-  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/scripts/serve.mjs" &
+  local script="$ROOT/scripts/serve.mjs"
+  [ "${SHEATHWISE_PROCESSES:-1}" -gt 1 ] && script="$ROOT/scripts/cluster.mjs"
+  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$script" &
   SERVER_PID=$!
   STARTED_PIDS+=("$SERVER_PID")
   wait_for_url "http://127.0.0.1:$SHEATHWISE_PORT/signin" 60 || { log "server did not answer"; return 1; }

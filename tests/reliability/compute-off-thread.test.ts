@@ -40,7 +40,7 @@ describe('calculation off the request thread', () => {
 
     // Before: how long health takes on this machine with nothing in flight (for the printout).
     const idle: number[] = [];
-    for (let i = 0; i < 10; i++) idle.push((await timed(() => sessions.designer.fetch('/api/health'))).ms);
+    for (let i = 0; i < 20; i++) idle.push((await timed(() => sessions.designer.fetch('/api/health'))).ms);
 
     let inFlight = ids.length;
     const calculations = ids.map(async (id) => {
@@ -60,13 +60,18 @@ describe('calculation off the request thread', () => {
     for (const res of await Promise.all(calculations)) expect(res.status, await res.clone().text()).toBe(200);
 
     figure('health p50 idle', percentile(idle, 50).toFixed(1), 'ms');
+    figure('health p95 idle', percentile(idle, 95).toFixed(1), 'ms');
     figure('health p50 with ten large calculations in flight', percentile(busy, 50).toFixed(1), 'ms');
     figure('health p95 with ten large calculations in flight', percentile(busy, 95).toFixed(1), 'ms');
     figure('health samples taken while calculating', busy.length);
     expect(busy.length).toBeGreaterThanOrEqual(5);
-    // Target 50 ms (issue 12); the bound is loose for a busy shared 2-core machine, and a
-    // calculation on the request thread (300 ms and more each, queued ten deep) breaks it.
-    expect(percentile(busy, 95)).toBeLessThan(250);
+    // Target 50 ms (issue 12). The bound is loose for a busy shared 2-core machine: 250 ms, or
+    // 2.5 times the idle p95 when the machine is so loaded that health alone is slow. Ten
+    // calculations queued on the request thread (a quarter of a second and more each) hold a
+    // health request for seconds, far past either.
+    const bound = Math.max(250, 2.5 * percentile(idle, 95));
+    figure('health p95 bound applied', bound.toFixed(0), 'ms');
+    expect(percentile(busy, 95)).toBeLessThan(bound);
 
     for (const [i, id] of ids.entries()) {
       const [row] = await db.select({ results: revisions.results, engineVersion: revisions.engineVersion }).from(revisions).where(eq(revisions.id, id));

@@ -3,6 +3,7 @@ import type { Database } from '../db/client';
 import { auditCheckpoints, auditEvents } from '../db/schema';
 import { compute, computeParallelism } from '../compute/compute-pool';
 import { inScope, type AuditScope } from './audit-scope';
+import { eventHash } from './audit-log';
 import type { RangeReport } from './audit-verify-range';
 
 export type VerifyMode = 'full' | 'incremental';
@@ -17,10 +18,10 @@ export interface ChainReport {
   /** A break was found at an event outside the caller's scope (not named: it is not theirs to see). */
   brokenOutsideScope?: true;
   mode: VerifyMode;
-  /** Checking started after this event id (0: from the first event). */
-  verifiedAfterId: number;
-  /** The last event checked (null: there was none to check). */
-  verifiedUpToId: number | null;
+  /** Checking started after this event id (0: from the first event). Administrators only: ids outside a reader's scope are not theirs to see. */
+  verifiedAfterId?: number;
+  /** The last event checked (null: there was none to check). Administrators only. */
+  verifiedUpToId?: number | null;
 }
 
 const CHECKPOINT_CHANGED = 'it was verified at the last checkpoint and has changed or gone since (run a full verification)';
@@ -38,11 +39,12 @@ export async function verifyAuditChain(db: Database, databaseUrl: string, scope:
   if (mode === 'incremental') {
     const [checkpoint] = await db.select().from(auditCheckpoints).orderBy(desc(auditCheckpoints.id)).limit(1);
     if (checkpoint) {
-      const [event] = await db.select({ hash: auditEvents.hash, projectId: auditEvents.projectId, type: auditEvents.type }).from(auditEvents).where(eq(auditEvents.id, checkpoint.eventId));
-      if (!event || event.hash !== checkpoint.hash) {
+      // The checkpoint's event must still be the one verified: its stored hash and its content.
+      const [event] = await db.select().from(auditEvents).where(eq(auditEvents.id, checkpoint.eventId));
+      if (!event || event.hash !== checkpoint.hash || eventHash(event) !== checkpoint.hash) {
         const named = event ? inScope(scope, event) : scope.all;
         const broken = named ? { firstBroken: { id: checkpoint.eventId, reason: CHECKPOINT_CHANGED } } : { brokenOutsideScope: true as const };
-        return { ok: false, checked: 0, ...broken, mode, verifiedAfterId: checkpoint.eventId, verifiedUpToId: null };
+        return { ok: false, checked: 0, ...broken, mode, ...(scope.all ? { verifiedAfterId: checkpoint.eventId, verifiedUpToId: null } : {}) };
       }
       afterId = checkpoint.eventId;
     }
@@ -58,8 +60,7 @@ export async function verifyAuditChain(db: Database, databaseUrl: string, scope:
     ...(joined.firstBroken ? { firstBroken: joined.firstBroken } : {}),
     ...(joined.brokenOutsideScope ? { brokenOutsideScope: true as const } : {}),
     mode,
-    verifiedAfterId: afterId,
-    verifiedUpToId: joined.last?.id ?? null,
+    ...(scope.all ? { verifiedAfterId: afterId, verifiedUpToId: joined.last?.id ?? null } : {}),
   };
 }
 
