@@ -40,7 +40,9 @@ export function workerBundlePath(): string | null {
 
 function computePool(): Piscina | null {
   if (pool !== undefined) return pool;
-  const threads = computeThreads();
+  // `astro dev` serves the sources as they change, and the bundle in dist/ may be older.
+  const devServer = import.meta.env?.DEV === true && !process.env.VITEST;
+  const threads = devServer ? 0 : computeThreads();
   const file = threads > 0 ? workerBundlePath() : null;
   if (threads > 0 && !file) console.warn('[compute] dist/workers/compute.mjs is missing (run npm run build): calculations run on the request thread');
   // Idle threads stay: starting one costs more than most calculations.

@@ -102,14 +102,16 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
 
     // The signature covers the locked row's inputs and results (which the guard has just
     // proved current): a later change to either makes it void (sign-off.ts).
+    // Hashed once: a long route's results are megabytes of JSON.
+    const signedResultsHash = signRole ? resultsHash(revision.results) : null;
     if (signRole) {
-      await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole], inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) });
+      await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole], inputsHash: revision.inputsHash, resultsHash: signedResultsHash });
     }
     // The reason for a return opens a remark thread: the designer answers it, a checker closes it.
     if (req.step === 'return') await tx.insert(remarks).values({ revisionId, authorId: actor.id, kind: 'return', body: req.reason!.trim() });
 
     const scope = { projectId: project.id, studyId: study.id };
-    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}), ...(signRole ? { signed: { role: signRole, inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) } } : {}) } });
+    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}), ...(signRole ? { signed: { role: signRole, inputsHash: revision.inputsHash, resultsHash: signedResultsHash } } : {}) } });
 
     if (to === 'issued') {
       const replaced = await tx
