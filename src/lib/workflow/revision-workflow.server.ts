@@ -69,6 +69,10 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
     const early = refusalText(before.revision.state, context, { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts });
     if (early) throw new AppError(early.kind, early.message);
     resultsCurrent = await resultsReproduce(s.db, before.revision, before.study);
+    // Someone may have acted while this request was checking: a stale request is refused here,
+    // without queueing for the row lock (fifty people pressing pass at once).
+    const [now] = await s.db.select({ version: revisions.version }).from(revisions).where(eq(revisions.id, revisionId));
+    if (now?.version !== req.version) throw new AppError('Conflict');
   }
 
   return withLockedRevision(s, revisionId, async ({ revision, study, project }, tx, sqlExecutor) => {
