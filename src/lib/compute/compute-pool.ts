@@ -46,7 +46,9 @@ function computePool(): Piscina | null {
   const file = threads > 0 ? workerBundlePath() : null;
   if (threads > 0 && !file) console.warn('[compute] dist/workers/compute.mjs is missing (run npm run build): calculations run on the request thread');
   // Idle threads stay: starting one costs more than most calculations.
-  pool = file ? new Piscina({ filename: pathToFileURL(file).href, minThreads: threads, maxThreads: threads, idleTimeout: 60_000 }) : null;
+  // Niced (Linux, through @napi-rs/nice): on a busy machine the scheduler serves the request
+  // thread and the database before a long calculation.
+  pool = file ? new Piscina({ filename: pathToFileURL(file).href, minThreads: threads, maxThreads: threads, idleTimeout: 60_000, niceIncrement: 10 }) : null;
   return pool;
 }
 
