@@ -6,8 +6,7 @@ import tailwindcss from '@tailwindcss/vite';
 import auth from 'auth-astro';
 import { validationGuard } from './scripts/validation-guard.ts';
 
-// The port is baked into the Host allow-list at build time, so the build and the server
-// must agree on it: scripts/ exports SHEATHWISE_PORT before building.
+// The dev server's port; scripts/ export SHEATHWISE_PORT before building.
 const port = Number(process.env.SHEATHWISE_PORT ?? 4321);
 
 export default defineConfig({
@@ -16,9 +15,11 @@ export default defineConfig({
   integrations: [react(), auth(), validationGuard()],
   server: { host: '127.0.0.1', port },
   security: {
+    // Loopback on any port: the same build serves the app's port, and the processes behind the
+    // local proxy (scripts/cluster.mjs) and the two-server test on ports of their own.
     allowedDomains: [
-      { protocol: 'http', hostname: '127.0.0.1', port: String(port) },
-      { protocol: 'http', hostname: 'localhost', port: String(port) },
+      { protocol: 'http', hostname: '127.0.0.1' },
+      { protocol: 'http', hostname: 'localhost' },
     ],
   },
   vite: { plugins: [tailwindcss()] },

@@ -3,6 +3,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     include: ['tests/**/*.test.ts'],
+    // The compute worker bundle (dist/workers) from the current sources, for services the tests call directly.
+    globalSetup: ['tests/helpers/build-workers.setup.ts'],
     testTimeout: 30_000,
     hookTimeout: 60_000,
     // Browser and HTTP tests share one server and database; files run one after another

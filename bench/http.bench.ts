@@ -5,6 +5,8 @@ import { gzipSync } from 'node:zlib';
 import autocannon from 'autocannon';
 import pg from 'pg';
 import { calculateStudy } from '../src/lib/calc';
+import { GENESIS, eventHash } from '../src/lib/audit/audit-log';
+import { compactResults } from '../src/lib/studies/stored-results';
 import { signedIn } from '../tests/helpers/http-session';
 import { DEMO_PASSWORD } from '../tests/helpers/env';
 import { firstLoadScripts, scriptsNamedIn, totalBytes } from '../tests/helpers/first-load-js';
@@ -45,6 +47,30 @@ async function seedStudies(db: pg.Client) {
   return template.project_id as string;
 }
 
+const AUDIT_EVENTS = 100_000;
+
+/** 100,000 events chained onto the end of the audit trail (organisation-wide, invented), hashed as the app hashes them. */
+async function seedAuditEvents(db: pg.Client) {
+  const t0 = performance.now();
+  const { rows: [last] } = await db.query('select hash from audit_events order by id desc limit 1');
+  let prevHash: string = last?.hash ?? GENESIS;
+  const start = Date.now();
+  for (let from = 0; from < AUDIT_EVENTS; from += 5000) {
+    const batch = Array.from({ length: Math.min(5000, AUDIT_EVENTS - from) }, (_, k) => {
+      const fields = { at: new Date(start + from + k), actorId: null, type: 'bench.event', projectId: null, studyId: null, revisionId: null, detail: { n: from + k, note: 'generated for the benchmark' }, prevHash };
+      const hash = eventHash(fields);
+      prevHash = hash;
+      return { ...fields, hash };
+    });
+    await db.query(
+      `insert into audit_events (at, type, detail, prev_hash, hash)
+       select at, type, detail, prev_hash, hash from unnest($1::timestamptz[], $2::text[], $3::jsonb[], $4::text[], $5::text[]) with ordinality as e(at, type, detail, prev_hash, hash, n) order by n`,
+      [batch.map((e) => e.at.toISOString()), batch.map((e) => e.type), batch.map((e) => JSON.stringify(e.detail)), batch.map((e) => e.prevHash), batch.map((e) => e.hash)],
+    );
+  }
+  console.log(`seeded ${AUDIT_EVENTS} audit events in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+}
+
 async function load(label: string, cookie: string, requests: autocannon.Request[], method = 'GET') {
   const times: number[] = [];
   const statuses = new Map<number, number>();
@@ -69,6 +95,7 @@ async function pageJsGzip(path: string, cookie: string): Promise<number> {
 const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
 await db.connect();
 const projectId = await seedStudies(db);
+await seedAuditEvents(db);
 const { rows: [someRevision] } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code = 'K05000'`);
 await db.end();
 
@@ -82,8 +109,11 @@ const studyPages = Array.from({ length: 60 }, (_, i) => ({
 console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route, ${STUDIES} studies in the project\n`);
 await load('studies list (any page, any sort)', cookie, studyPages);
 await load('revision detail', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}` }]);
+await load('route profile of a case (recomputed)', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}/profile?caseId=LOAD` }]);
 await load('health', cookie, [{ method: 'GET', path: '/api/health' }]);
 await load('calculate (reference study)', cookie, [{ method: 'POST', path: `/api/revisions/${someRevision.id}/calculate` }]);
+// One more calculation, for the incremental verification below to have new events.
+const calculateOnce = async () => (await fetch(`${base}/api/revisions/${someRevision.id}/calculate`, { method: 'POST', headers: { cookie, origin: base } })).arrayBuffer();
 
 console.log('\nfirst-load JavaScript, gzipped:');
 // The audit trail is the auditor's screen; the others the designer's.
@@ -92,6 +122,33 @@ for (const [page, who] of [['/signin', cookie], ['/', cookie], [`/projects/${pro
   console.log(`  ${page.padEnd(60)} ${(((await pageJsGzip(page, who)) / 1024)).toFixed(0).padStart(5)} kB`);
 }
 
+// The audit chain, as the administrator (every event): the whole chain, then from the checkpoint
+// that run left, after a few more events.
+const adminCookie = (await signedIn('admin@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
+const timedVerify = async (mode: string) => {
+  const t0 = performance.now();
+  const report = await (await fetch(`${base}/api/audit/verify?mode=${mode}`, { headers: { cookie: adminCookie } })).json();
+  return { ms: performance.now() - t0, report };
+};
+console.log(`\naudit verification (${AUDIT_EVENTS} generated events plus the demo's):`);
+for (let i = 0; i < 2; i++) {
+  const full = await timedVerify('full');
+  console.log(`  full:        ${full.ms.toFixed(0).padStart(6)} ms  ok=${full.report.ok} checked=${full.report.checked}`);
+}
+await calculateOnce();
+const incremental = await timedVerify('incremental');
+console.log(`  incremental: ${incremental.ms.toFixed(0).padStart(6)} ms  ok=${incremental.report.ok} checked=${incremental.report.checked} (events since the checkpoint)`);
+
 const large = crossBondedRoute({ circuits: 2, majorSections: 30, withEcc: true });
-const results = JSON.stringify(calculateStudy(large));
-console.log(`\nresults stored per revision, large route (90 minor sections, 2 circuits): ${(results.length / 1024).toFixed(0)} kB JSON, ${(gzipSync(results).length / 1024).toFixed(0)} kB gzipped`);
+const full = JSON.stringify(calculateStudy(large));
+const compact = JSON.stringify(compactResults(calculateStudy(large)));
+const sizeDb = new pg.Client({ connectionString: process.env.DATABASE_URL });
+await sizeDb.connect();
+await sizeDb.query('create temp table stored_size (r jsonb)');
+await sizeDb.query('insert into stored_size values ($1::jsonb), ($2::jsonb)', [full, compact]);
+const { rows: onDisk } = await sizeDb.query('select pg_column_size(r) as bytes from stored_size');
+await sizeDb.end();
+const kB = (n: number) => `${(n / 1024).toFixed(0)} kB`;
+console.log('\nresults stored per revision, large route (90 minor sections, 2 circuits):');
+console.log(`  before (with route profiles): ${kB(full.length)} JSON, ${kB(gzipSync(full).length)} gzipped, ${kB(onDisk[0].bytes)} in PostgreSQL (jsonb, TOAST-compressed)`);
+console.log(`  now (profiles recomputed on request): ${kB(compact.length)} JSON, ${kB(gzipSync(compact).length)} gzipped, ${kB(onDisk[1].bytes)} in PostgreSQL`);

@@ -6,6 +6,9 @@ import { seedDemo } from './seed-demo';
 const url = process.env.DATABASE_URL;
 if (!url) throw new Error('DATABASE_URL is not set: run this through npm start or npm test.');
 
+// The seed runs before the build, so dist/workers may be missing or older than the sources:
+// its few calculations run on this thread.
+process.env.COMPUTE_THREADS ??= '0';
 const { db, pool } = createDatabase(url, 2);
 try {
   await migrateDatabase(db);

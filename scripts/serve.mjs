@@ -1,6 +1,7 @@
 // The production server: Astro's built handler (Node adapter, standalone) behind gzip/brotli
 // compression and a few headers that static files need as much as pages do. Run after
 // `astro build`: `HOST=127.0.0.1 PORT=4321 node scripts/serve.mjs`.
+import { timingSafeEqual } from 'node:crypto';
 import http from 'node:http';
 import compression from 'compression';
 
@@ -13,10 +14,25 @@ const port = Number(process.env.PORT ?? 4321);
 // fonts (woff2) and DOCX are compressed already.
 const compress = compression({ threshold: 1024 });
 
+// Astro takes the client's address from X-Forwarded-For whenever it is present, and sign-in
+// throttles per address: the header is believed only from our own proxy (scripts/cluster.mjs),
+// which connects over loopback and shows the secret it gave this process. Anyone else's is dropped.
+const proxySecret = process.env.SHEATHWISE_PROXY_SECRET ? Buffer.from(process.env.SHEATHWISE_PROXY_SECRET) : null;
+const LOOPBACK = /^(127\.|::1$|::ffff:127\.)/;
+
+function fromOurProxy(req) {
+  const shown = req.headers['x-sheathwise-proxy'];
+  if (!proxySecret || typeof shown !== 'string' || !LOOPBACK.test(req.socket.remoteAddress ?? '')) return false;
+  const given = Buffer.from(shown);
+  return given.length === proxySecret.length && timingSafeEqual(given, proxySecret);
+}
+
 const server = http.createServer((req, res) => {
   // Pages get their full set (CSP included) from the app's middleware; static files get these.
   res.setHeader('X-Content-Type-Options', 'nosniff');
   res.setHeader('Referrer-Policy', 'no-referrer');
+  if (!fromOurProxy(req)) delete req.headers['x-forwarded-for'];
+  delete req.headers['x-sheathwise-proxy'];
   if (req.url?.startsWith('/api/') && !decodable(req.url)) {
     res.writeHead(400, { 'Content-Type': 'application/json' });
     res.end(JSON.stringify({ error: 'InvalidInput', title: 'Input needs correcting', message: 'The address holds an escape sequence that is not valid (for example %E0%A4%A).' }));

@@ -202,6 +202,12 @@ exec_logged() {
 build_app() {
   log "building the app for port $SHEATHWISE_PORT"
   (cd "$ROOT" && exec_logged "${BUILD_LOG:-}" node_modules/.bin/astro build) || { log "build failed"; return 1; }
+  # The compute worker threads' bundle (dist/workers), after astro build has emptied dist/.
+  if [ -n "${BUILD_LOG:-}" ]; then
+    (cd "$ROOT" && node scripts/build-workers.mjs >>"$BUILD_LOG" 2>&1)
+  else
+    (cd "$ROOT" && node scripts/build-workers.mjs)
+  fi || { log "building the compute worker failed"; return 1; }
 }
 
 # migrate_and_seed [--seed]: applies drizzle/ migrations, then the demo scenario once.
@@ -209,8 +215,12 @@ migrate_and_seed() {
   (cd "$ROOT" && node_modules/.bin/tsx scripts/migrate.ts "$@")
 }
 
+# With SHEATHWISE_PROCESSES above 1, that many server processes (ports SHEATHWISE_PORT+1 …)
+# behind the local reverse proxy on SHEATHWISE_PORT (scripts/cluster.mjs).
 start_server() {
-  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$ROOT/scripts/serve.mjs" &
+  local script="$ROOT/scripts/serve.mjs"
+  [ "${SHEATHWISE_PROCESSES:-1}" -gt 1 ] && script="$ROOT/scripts/cluster.mjs"
+  exec_logged "${SERVER_LOG:-}" env HOST=127.0.0.1 PORT="$SHEATHWISE_PORT" node "$script" &
   SERVER_PID=$!
   STARTED_PIDS+=("$SERVER_PID")
   wait_for_url "http://127.0.0.1:$SHEATHWISE_PORT/signin" 60 || { log "server did not answer"; return 1; }

@@ -19,6 +19,13 @@ choose_pg_dir
 PORTS=("app:$SHEATHWISE_PORT:SHEATHWISE_PORT" "mail SMTP:$SMTP_PORT_DEV:SHEATHWISE_SMTP_PORT"
   "mail inbox:$MAIL_WEB_PORT:SHEATHWISE_MAIL_WEB_PORT" "S3 fake:$S3_PORT:SHEATHWISE_S3_PORT")
 pg_running "$PG_DIR" || PORTS+=("PostgreSQL:$PG_PORT:SHEATHWISE_PG_PORT")
+# SHEATHWISE_PROCESSES=N: N server processes on the ports after SHEATHWISE_PORT, behind a proxy on it.
+PROCESSES="${SHEATHWISE_PROCESSES:-1}"
+if [[ ! "$PROCESSES" =~ ^[0-9]+$ ]] || ((PROCESSES < 1 || PROCESSES > 32)); then
+  log "SHEATHWISE_PROCESSES must be a whole number from 1 to 32, not \"$PROCESSES\""
+  exit 1
+fi
+for ((i = 1; PROCESSES > 1 && i <= PROCESSES; i++)); do PORTS+=("server process $i:$((SHEATHWISE_PORT + i)):SHEATHWISE_PORT"); done
 require_free_ports "${PORTS[@]}" || exit 1
 
 ensure_node_modules

@@ -100,13 +100,13 @@ describe('audit trail scoped by project', () => {
 
   it('verifies the whole chain for everyone but names a broken event only to those who may see it', async () => {
     const counted = await json(await outsider.session.fetch('/api/audit/verify'), 200);
-    expect(counted).toEqual({ ok: true, checked: await expectedCount([outsider.projectId]) });
+    expect(counted).toEqual({ ok: true, checked: await expectedCount([outsider.projectId]), mode: 'full' });
 
     const [victim] = await db.select().from(auditEvents).where(eq(auditEvents.projectId, demoProjectId)).orderBy(desc(auditEvents.id)).limit(1);
     try {
       await db.update(auditEvents).set({ detail: sql`${auditEvents.detail} || '{"tampered": true}'::jsonb` }).where(eq(auditEvents.id, victim.id));
       const forOutsider = await json(await outsider.session.fetch('/api/audit/verify'), 200);
-      expect(forOutsider).toEqual({ ok: false, checked: counted.checked, brokenOutsideScope: true });
+      expect(forOutsider).toEqual({ ok: false, checked: counted.checked, brokenOutsideScope: true, mode: 'full' });
       const forAuditor = await json(await sessions.auditor.fetch('/api/audit/verify'), 200);
       expect(forAuditor).toMatchObject({ ok: false, firstBroken: { id: victim.id } });
       expect(forAuditor.brokenOutsideScope).toBeUndefined();

@@ -112,6 +112,7 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   { route: 'GET /api/audit/facets', allowed: AUDIT_READERS, status: 200, call: () => ({ method: 'GET', path: '/api/audit/facets' }) },
   { route: 'GET /api/me/queue', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/me/queue' }) },
   { route: 'GET /api/revisions/[revisionId]/history', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/history` }) },
+  { route: 'GET /api/revisions/[revisionId]/profile', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/profile?caseId=LOAD` }) },
   { route: 'GET /api/revisions/[revisionId]/compare', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.inCheck}/compare?against=previous` }) },
   { route: 'GET /api/admin/projects/[projectId]/document-number', allowed: ['admin'], status: 200, call: (f) => ({ method: 'GET', path: `/api/admin/projects/${f.projectId}/document-number` }) },
   { route: 'GET /api/admin/record-settings', allowed: ['admin'], status: 200, call: () => ({ method: 'GET', path: '/api/admin/record-settings' }) },

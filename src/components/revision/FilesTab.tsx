@@ -76,7 +76,7 @@ export default function FilesTab({ detail, canUpload }: { detail: RevisionDetail
               <tr key={i} className="border-t border-rule"><td className="px-2 py-1">{m.jointIndex}</td><td className="px-2 py-1">{m.cable}</td><td className="px-2 py-1">{m.loadCurrentA} A</td><td className="px-2 py-1 font-mono">{formatQuantity(m.measuredV, 'V')}</td><td className="px-2 py-1 font-mono">{m.calculatedV === null ? 'no such point' : formatQuantity(m.calculatedV, 'V')}</td><td className="px-2 py-1 font-mono">{m.deviationPct === null ? '—' : `${m.deviationPct.toFixed(1)} %`}</td></tr>
             ))}</tbody>
           </table>
-          {compareCase && <RouteProfilePlot result={compareCase} limitV={null} measurements={comparison.data.rows.filter((m) => m.chainageM !== null).map((m) => ({ chainageM: m.chainageM!, label: `${m.cable} at joint ${m.jointIndex}`, voltageV: (m.measuredV * m.caseCurrentA) / m.loadCurrentA }))} />}
+          {compareCase && <RouteProfilePlot revisionId={r.id} result={compareCase} limitV={null} measurements={comparison.data.rows.filter((m) => m.chainageM !== null).map((m) => ({ chainageM: m.chainageM!, label: `${m.cable} at joint ${m.jointIndex}`, voltageV: (m.measuredV * m.caseCurrentA) / m.loadCurrentA }))} />}
           <p className="text-xs text-ink-soft">On the plot, each reading is scaled up from its load to the case current, so it sits on the same basis as the calculated curves.</p>
         </section>
       ))}

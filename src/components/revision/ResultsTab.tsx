@@ -47,7 +47,7 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
       <section>
         <label className="text-sm font-semibold">Case <select aria-label="Case" className="ml-2 rounded border border-rule bg-panel px-2 py-1" value={c.caseId} onChange={(e) => setCaseId(e.target.value)}>{results.cases.map((x) => <option key={x.caseId} value={x.caseId}>{x.caseId}: {x.name}</option>)}</select></label>
         <p className="text-xs text-ink-soft">Route plot: sheath and ECC voltages to remote earth.</p>
-        <RouteProfilePlot result={c} limitV={limit} measurements={measurements?.caseId === c.caseId ? measurements.rows : []} />
+        <RouteProfilePlot revisionId={detail.revision.id} result={c} limitV={limit} measurements={measurements?.caseId === c.caseId ? measurements.rows : []} />
       </section>
       <section className="flex flex-wrap gap-6">
         {worstPoint && <PhasorDiagram point={worstPoint} />}

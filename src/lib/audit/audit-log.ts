@@ -4,9 +4,10 @@ import { auditEvents, projects, revisions, studies, users, type AuditEvent } fro
 import { eventSentence } from '../records/event-sentences';
 import { canonicalJson, sha256Hex } from '../canonical-json';
 import { toCsv } from '../csv/csv-text';
-import { inScope, scopeCondition, type AuditScope } from './audit-scope';
+import { scopeCondition, type AuditScope } from './audit-scope';
 
-const GENESIS = 'genesis';
+/** The previous hash of the first event. */
+export const GENESIS = 'genesis';
 // Appends take this transaction-scoped lock so that two writers cannot both chain onto the same
 // previous event.
 const CHAIN_LOCK = 7_270_001;
@@ -20,10 +21,10 @@ export interface AuditEntry {
   detail: Record<string, unknown>;
 }
 
-type SealedFields = Omit<AuditEvent, 'id' | 'hash'>;
+export type SealedFields = Omit<AuditEvent, 'id' | 'hash'>;
 
 /** The hash over every stored field but the row id and the hash itself. */
-function eventHash(e: SealedFields): string {
+export function eventHash(e: SealedFields): string {
   const { at, actorId, type, projectId, studyId, revisionId, detail, prevHash } = e;
   return sha256Hex(canonicalJson({ at: at.getTime(), actorId, type, projectId, studyId, revisionId, detail, prevHash }));
 }
@@ -43,47 +44,6 @@ export async function appendAudit(tx: Database, entry: AuditEntry): Promise<void
     prevHash: last?.hash ?? GENESIS,
   };
   await tx.insert(auditEvents).values({ ...fields, hash: eventHash(fields) });
-}
-
-export interface ChainReport {
-  /** The whole chain, every project's events included, is intact. */
-  ok: boolean;
-  /** Events inside the caller's scope that were verified. */
-  checked: number;
-  /** The first broken event inside the caller's scope. */
-  firstBroken?: { id: number; reason: string };
-  /** A break was found at an event outside the caller's scope (not named: it is not theirs to see). */
-  brokenOutsideScope?: true;
-}
-
-const REASONS = {
-  link: 'it does not point at the event before it (an event was removed or reordered)',
-  content: 'its content no longer matches its hash (the event was changed)',
-};
-
-/**
- * Recomputes the whole chain from the first event: the links run across projects, so a removed
- * event of one project shows up as a broken link at whatever event follows it. Each event is
- * checked against the stored hash of the one before it, so checking carries on past a break and
- * every broken event is found. The report names only events inside the caller's scope; a break
- * elsewhere is reported as such, without its id.
- */
-export async function verifyAuditChain(db: Database, scope: AuditScope): Promise<ChainReport> {
-  const rows = await db.select().from(auditEvents).orderBy(asc(auditEvents.id));
-  let prev = GENESIS;
-  let checked = 0;
-  let firstBroken: ChainReport['firstBroken'];
-  let brokenOutsideScope = false;
-  for (const row of rows) {
-    const reason = row.prevHash !== prev ? REASONS.link : row.hash !== eventHash(row) ? REASONS.content : null;
-    const visible = inScope(scope, row);
-    if (visible) checked++;
-    if (reason && visible) firstBroken ??= { id: row.id, reason };
-    if (reason && !visible) brokenOutsideScope = true;
-    prev = row.hash;
-  }
-  const ok = !firstBroken && !brokenOutsideScope;
-  return { ok, checked, ...(firstBroken ? { firstBroken } : {}), ...(brokenOutsideScope ? { brokenOutsideScope: true as const } : {}) };
 }
 
 export interface AuditFilter {

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray } from 'drizzle-orm';
+import { and, asc, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
 import type { Database } from './client';
 import { checkValues, checklistItems, limitSetVersions, memberships, projects, remarks, revisions, signOffs, studies, users } from './schema';
 import { AppError } from '../errors';
@@ -25,6 +25,22 @@ export async function loadRevisionScope(db: Database, revisionId: string, { lock
     .innerJoin(projects, eq(projects.id, studies.projectId))
     .where(eq(revisions.id, revisionId));
   const [row] = await (lock ? query.for('update', { of: revisions }) : query);
+  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+  return row;
+}
+
+/**
+ * A revision and its study for a calculation: the results as JSON text (null before any
+ * calculation), so that a worker thread parses them and the request thread never does.
+ */
+export async function revisionForCalculation(db: Database, revisionId: string) {
+  assertId(revisionId, 'revision');
+  const { results: _results, ...columns } = getTableColumns(revisions);
+  const [row] = await db
+    .select({ revision: columns, study: studies, resultsJson: sql<string | null>`${revisions.results}::text` })
+    .from(revisions)
+    .innerJoin(studies, eq(studies.id, revisions.studyId))
+    .where(eq(revisions.id, revisionId));
   if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
   return row;
 }

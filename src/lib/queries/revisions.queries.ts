@@ -2,6 +2,7 @@ import { queryOptions } from '@tanstack/react-query';
 import { api } from './api-client';
 import type { ChecklistRow, CheckValue, Remark, Revision, Study } from '../db/schema';
 import type { StudyResults } from '../calc';
+import type { CaseResult } from '../calc/bonding/results';
 
 export interface RevisionDetail {
   revision: Omit<Revision, 'results'> & { results: StudyResults | null };
@@ -15,6 +16,15 @@ export interface RevisionDetail {
 
 export const revisionQuery = (revisionId: string) =>
   queryOptions({ queryKey: ['revision', revisionId], queryFn: () => api<RevisionDetail>(`/api/revisions/${revisionId}`) });
+
+/** One case's route profile: the stored results leave it out, and the server recomputes it. */
+export const routeProfileQuery = (revisionId: string, caseId: string) =>
+  queryOptions({
+    queryKey: ['revision', revisionId, 'profile', caseId],
+    queryFn: () => api<{ caseId: string; profile: CaseResult['profile']; recomputed: boolean }>(`/api/revisions/${revisionId}/profile?caseId=${encodeURIComponent(caseId)}`),
+    // A profile belongs to results that never change once calculated; a new calculation refetches the revision.
+    staleTime: Infinity,
+  });
 
 export const revisionHistoryQuery = (revisionId: string) =>
   queryOptions({

@@ -230,6 +230,9 @@ function plotBlocks(data: RecordData): Paragraph[] {
   if (!data.results || data.results.kind !== 'bonding') return [];
   const results = data.results as BondingResults;
   const { text, layout } = recordTemplate();
+  // Profiles are recomputed for the record when not stored (compute-tasks.ts); they cannot be
+  // when the inputs changed after the calculation.
+  if (results.cases.some((c) => !c.profile)) return [subheading(text.plotHeading), body(text.plotUnavailable, { italic: true })];
   return [
     subheading(text.plotHeading),
     body(text.plotNote, { italic: true }),

@@ -22,6 +22,8 @@ export interface RecordText {
   plotCaption: string;
   plotNote: string;
   plotNoLimit: string;
+  /** Said instead of the plots when the stored results carry no profile and it cannot be recomputed from the same inputs. */
+  plotUnavailable: string;
   historyHeading: string;
   stepsHeading: string;
   changesHeading: string;

@@ -14,7 +14,7 @@ import { MAIL_QUEUE } from '../mail/mail-delivery';
 import { recordFailedMessage } from '../mail/workflow-messages';
 import { gatherRecordData, recordDocumentNumber } from './record-data';
 import type { ObjectStore } from '../storage/object-store';
-import { renderRecord } from './record-document';
+import { compute } from '../compute/compute-pool';
 
 export const RECORD_QUEUE = 'record';
 
@@ -31,9 +31,10 @@ export function enqueueRecords(jobs: JobQueue | null | undefined, sqlExecutor: S
 const ISSUED = ['issued', 'superseded'] as const;
 const isIssued = (state: string) => (ISSUED as readonly string[]).includes(state);
 
-/** A record rendered now from the revision as it stands, marked as a draft unless issued. */
+/** A record rendered now (in a worker thread) from the revision as it stands, marked as a draft unless issued. */
 export async function renderCurrentRecord(db: Database, revisionId: string, store?: ObjectStore | null, appUrl?: string): Promise<Buffer> {
-  return renderRecord(await gatherRecordData(db, revisionId, store, appUrl));
+  const bytes = await compute({ task: 'record', data: await gatherRecordData(db, revisionId, store, appUrl) });
+  return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 }
 
 /**

@@ -1,5 +1,8 @@
 import type { Database } from '../db/client';
-import { loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
+import { eq } from 'drizzle-orm';
+import { assertId, loadStudyScope } from '../db/revisions.repo';
+import { revisions, studies } from '../db/schema';
+import { AppError } from '../errors';
 import type { ProjectRole } from '../db/schema/projects';
 
 /** Roles that may read a project's studies. */
@@ -7,5 +10,11 @@ export const READERS: ProjectRole[] = ['designer', 'checker', 'approver', 'audit
 /** Roles that take part in the work (everyone but the auditor). */
 export const PARTICIPANTS: ProjectRole[] = ['designer', 'checker', 'approver'];
 
-export const projectOfRevision = async (db: Database, revisionId: string) => (await loadRevisionScope(db, revisionId)).project.id;
+/** The project of a revision (NotFound if none): reads two small columns, never the revision's inputs or results. */
+export async function projectOfRevision(db: Database, revisionId: string): Promise<string> {
+  assertId(revisionId, 'revision');
+  const [row] = await db.select({ projectId: studies.projectId }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(eq(revisions.id, revisionId));
+  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+  return row.projectId;
+}
 export const projectOfStudy = async (db: Database, studyId: string) => (await loadStudyScope(db, studyId)).project.id;

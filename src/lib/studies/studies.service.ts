@@ -9,9 +9,11 @@ import { appendAudit } from '../audit/audit-log';
 import { inputsHash } from '../canonical-json';
 import { jsonDiff } from '../json-diff';
 import { describeInputChanges } from '../compare/input-changes';
-import { CalculationError, ENGINE_VERSION, calculateStudy, evaluateCompliance } from '../calc';
+import { ENGINE_VERSION } from '../calc';
+import { compute } from '../compute/compute-pool';
+import { knownRecomputation, rememberRecomputation } from './recomputations.repo';
 import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '../workflow/revision.machine';
-import { latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
+import { latestLimitSetVersion, loadRevisionScope, loadStudyScope, revisionForCalculation } from '../db/revisions.repo';
 import { checklistRows } from './checklist-rows';
 import { parseStudyInputs } from './study-input';
 import { issuedRevisionOf } from './study-copy.service';
@@ -79,31 +81,35 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
   });
 }
 
-/** Calculates a revision, stores the results with the engine version and inputs hash, and refreshes its checklist. */
+/**
+ * Calculates a revision in a worker thread, stores the results (compact: no route profiles) with
+ * the engine version and inputs hash, and refreshes its checklist. Results already stored for
+ * the same inputs hash and engine version are kept when they match the recorded recomputation
+ * (`recomputations`): only the limit set is applied again.
+ */
 export async function calculateRevision(s: AppServices, actor: SessionUser, revisionId: string) {
-  // Calculated outside the lock (CPU-bound); the version check under the lock proves the
-  // inputs are still the ones calculated.
-  const { revision, study } = await loadRevisionScope(s.db, revisionId);
+  // The cheap refusals (state, designer) come first; the calculation runs outside the lock, and
+  // the version check under the lock proves the inputs are still the ones calculated. The
+  // results travel as JSON text: the request thread never parses or serialises them.
+  const { revision, study, resultsJson: storedJson } = await revisionForCalculation(s.db, revisionId);
   assertEditableBy(actor, revision);
-  const inputs = parseStudyInputs(revision.inputs, study.kind);
   const limits = await latestLimitSetVersion(s.db, study.limitSetId);
-  let results;
-  try {
-    results = calculateStudy(inputs);
-  } catch (err) {
-    if (err instanceof CalculationError) throw new AppError('InvalidInput', err.message, [{ field: `inputs.${err.path.join('.') || '(study)'}`, message: err.message }]);
-    throw err;
-  }
-  const computed = evaluateCompliance(inputs, results, { name: (await s.db.select({ name: limitSets.name }).from(limitSets).where(eq(limitSets.id, study.limitSetId)))[0].name, version: limits.version, limits: limits.limits });
+  const [{ name }] = await s.db.select({ name: limitSets.name }).from(limitSets).where(eq(limitSets.id, study.limitSetId));
+  const limitSet = { name, version: limits.version, limits: limits.limits };
+  const sameInputs = storedJson !== null && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
+  const knownHash = sameInputs ? await knownRecomputation(s.db, revision.inputsHash) : null;
+  const reuse = storedJson && knownHash ? { storedJson, knownHash } : undefined;
+  const { inputs, resultsJson, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
   return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
     assertEditableBy(actor, current);
     if (current.version !== revision.version) throw new AppError('Conflict');
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
       .update(revisions)
-      .set({ results, resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .set({ ...(fresh ? { results: sql`${resultsJson}::jsonb` } : {}), resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
       .where(eq(revisions.id, revisionId))
-      .returning();
+      .returning({ id: revisions.id, version: revisions.version, engineVersion: revisions.engineVersion, inputsHash: revisions.inputsHash });
+    if (fresh) await rememberRecomputation(tx, revision.inputsHash, resultsHash);
     await tx.delete(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const rows = checklistRows(revisionId, computed, limits.manualItems, existing, inputs);
     if (rows.length) await tx.insert(checklistItems).values(rows);
@@ -117,6 +123,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
         engineVersion: ENGINE_VERSION,
         inputsHash: revision.inputsHash,
         limitSetVersion: limits.version,
+        ...(fresh ? {} : { resultsReused: true }),
         verdicts: { pass: computed.filter((c) => c.status === 'pass').length, fail: computed.filter((c) => c.status === 'fail').length, noLimit: computed.filter((c) => c.status === 'no-limit').length },
       },
     });

@@ -1,9 +1,11 @@
 import { and, eq, isNull } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { checkValues, checklistItems, remarks, type Revision, type Study } from '../db/schema';
-import { canonicalJson } from '../canonical-json';
-import { ENGINE_VERSION, calculateStudy } from '../calc';
-import { parseStudyInputs } from '../studies/study-input';
+import { ENGINE_VERSION } from '../calc';
+import { compute } from '../compute/compute-pool';
+import { hasStoredProfiles } from '../studies/stored-results';
+import { knownRecomputation, rememberRecomputation } from '../studies/recomputations.repo';
+import { resultsHash } from './sign-off';
 import type { RevisionFacts } from './revision.machine';
 
 /**
@@ -33,9 +35,22 @@ export async function revisionFacts(db: Database, revision: Revision, opts: { re
   };
 }
 
-/** Runs the core again on the stored inputs and demands the same figures (before submit, pass and issue). */
-export function resultsReproduce(revision: Revision, study: Study): boolean {
+/**
+ * Whether the stored results are what the engine gives for the stored inputs (before submit,
+ * pass and issue). When a fresh calculation of these inputs with this engine is on record
+ * (`recomputations`), the stored results are compared with its hash; otherwise the core runs
+ * again in a worker thread and its hash is kept for the next hand-off. Results stored with
+ * route profiles (before they were left out) are always calculated again in full.
+ */
+export async function resultsReproduce(db: Database, revision: Revision, study: Study): Promise<boolean> {
   if (!revision.results || revision.resultsInputsHash !== revision.inputsHash || revision.engineVersion !== ENGINE_VERSION) return false;
-  const fresh = calculateStudy(parseStudyInputs(revision.inputs, study.kind));
-  return canonicalJson(fresh) === canonicalJson(revision.results);
+  const stored = resultsHash(revision.results);
+  const withProfiles = hasStoredProfiles(revision.results);
+  if (!withProfiles) {
+    const known = await knownRecomputation(db, revision.inputsHash);
+    if (known) return known === stored;
+  }
+  const fresh = await compute({ task: 'reproduce', studyKind: study.kind, rawInputs: revision.inputs });
+  await rememberRecomputation(db, revision.inputsHash, fresh.compactHash);
+  return (withProfiles ? fresh.fullHash : fresh.compactHash) === stored;
 }

@@ -59,7 +59,21 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
     if (early && early.kind !== 'StepRefused') throw new AppError(early.kind, early.message);
     await reauthenticate(s, actor, { ...signing, password: req.password });
   }
-  const resultsCurrent = RECOMPUTE.has(req.step) && acceptsInState(before.revision.state, `revision.${req.step}`) ? resultsReproduce(before.revision, before.study) : true;
+  let resultsCurrent = true;
+  if (RECOMPUTE.has(req.step) && acceptsInState(before.revision.state, `revision.${req.step}`)) {
+    // The other guards are cheap reads: a step they refuse is refused before the recomputation
+    // (taking results as current), with the same message the locked check would give.
+    const roles = (actor.projectRoles[before.project.id] ?? []) as WorkflowRole[];
+    const context = { designerId: before.revision.designerId, checkerId: before.revision.checkerId, approverId: before.revision.approverId };
+    const facts = await revisionFacts(s.db, before.revision, { resultsCurrent: true, reason: req.reason });
+    const early = refusalText(before.revision.state, context, { type: `revision.${req.step}`, actor: { userId: actor.id, roles }, facts });
+    if (early) throw new AppError(early.kind, early.message);
+    resultsCurrent = await resultsReproduce(s.db, before.revision, before.study);
+    // Someone may have acted while this request was checking: a stale request is refused here,
+    // without queueing for the row lock (fifty people pressing pass at once).
+    const [now] = await s.db.select({ version: revisions.version }).from(revisions).where(eq(revisions.id, revisionId));
+    if (now?.version !== req.version) throw new AppError('Conflict');
+  }
 
   return withLockedRevision(s, revisionId, async ({ revision, study, project }, tx, sqlExecutor) => {
     if (revision.version !== req.version) throw new AppError('Conflict');
@@ -92,14 +106,16 @@ export async function applyStep(s: AppServices, actor: SessionUser, revisionId: 
 
     // The signature covers the locked row's inputs and results (which the guard has just
     // proved current): a later change to either makes it void (sign-off.ts).
+    // Hashed once: a long route's results are megabytes of JSON.
+    const signedResultsHash = signRole ? resultsHash(revision.results) : null;
     if (signRole) {
-      await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole], inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) });
+      await tx.insert(signOffs).values({ revisionId, userId: actor.id, role: signRole, statement: req.statement?.trim() || DEFAULT_STATEMENT[signRole], inputsHash: revision.inputsHash, resultsHash: signedResultsHash });
     }
     // The reason for a return opens a remark thread: the designer answers it, a checker closes it.
     if (req.step === 'return') await tx.insert(remarks).values({ revisionId, authorId: actor.id, kind: 'return', body: req.reason!.trim() });
 
     const scope = { projectId: project.id, studyId: study.id };
-    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}), ...(signRole ? { signed: { role: signRole, inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) } } : {}) } });
+    await appendAudit(tx, { actorId: actor.id, type: `revision.${req.step}`, ...scope, revisionId, detail: { state: { from: revision.state, to }, version: updated.version, ...(req.reason ? { reason: req.reason } : {}), ...(signRole ? { signed: { role: signRole, inputsHash: revision.inputsHash, resultsHash: signedResultsHash } } : {}) } });
 
     if (to === 'issued') {
       const replaced = await tx

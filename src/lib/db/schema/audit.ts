@@ -1,4 +1,4 @@
-import { bigserial, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigint, bigserial, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 /** Append-only: each event carries the hash of the one before it, so a changed row breaks the chain. */
 export const auditEvents = pgTable('audit_events', {
@@ -15,3 +15,17 @@ export const auditEvents = pgTable('audit_events', {
 });
 
 export type AuditEvent = typeof auditEvents.$inferSelect;
+
+/**
+ * Where a verification of the whole chain got to: the last event found intact and its hash. An
+ * incremental verification starts after the latest checkpoint (after checking that this event
+ * still carries the hash); a full one walks from the first event and finds a change anywhere.
+ */
+export const auditCheckpoints = pgTable('audit_checkpoints', {
+  id: bigserial('id', { mode: 'number' }).primaryKey(),
+  eventId: bigint('event_id', { mode: 'number' }).notNull(),
+  hash: text('hash').notNull(),
+  /** 'full' (walked from the first event) or 'incremental' (from the checkpoint before). */
+  mode: text('mode').notNull(),
+  verifiedAt: timestamp('verified_at', { withTimezone: true }).notNull().defaultNow(),
+});

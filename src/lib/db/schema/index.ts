@@ -12,3 +12,4 @@ export * from './document-numbers';
 export * from './record-settings';
 export * from './register';
 export * from './explorations';
+export * from './recomputations';
