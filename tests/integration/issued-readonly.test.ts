@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { HttpSession } from '../helpers/http-session';
-import { type DemoRole, currentVersion, demoSessions, drive, fixtureInputs, json, readyDraft, send, step } from '../helpers/workflow-api';
+import { type DemoRole, currentVersion, demoSessions, drive, fixtureInputs, json, prepareForSubmit, readyDraft, send, step } from '../helpers/workflow-api';
 
 describe('an issued revision never changes', () => {
   let sessions: Record<DemoRole, HttpSession>;
@@ -43,10 +43,8 @@ describe('an issued revision never changes', () => {
     expect(next.number).toBe(2);
     expect(next.inputs).toEqual(detail.revision.inputs);
     await json(await send(sessions.designer, 'POST', `/api/revisions/${next.id}/calculate`), 200);
-    const draft = await json(await sessions.designer.fetch(`/api/revisions/${next.id}`), 200);
-    for (const item of draft.checklist.filter((i: { kind: string }) => i.kind === 'manual')) {
-      await json(await send(sessions.designer, 'PUT', `/api/revisions/${next.id}/checklist/${encodeURIComponent(item.itemKey)}`, { answer: 'yes' }), 200);
-    }
+    // The designer answers what is theirs to answer; questions the study answers itself stay as the study set them.
+    await prepareForSubmit(sessions.designer, next.id);
     await drive(sessions, next.id, [['designer', 'submit'], ['checker', 'startCheck'], ['checker', 'pass'], ['approver', 'issue']]);
     const old = await json(await sessions.auditor.fetch(`/api/revisions/${revisionId}`), 200);
     expect(old.revision.state).toBe('superseded');
