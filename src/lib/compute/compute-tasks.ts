@@ -9,6 +9,9 @@ import { renderRecord } from '../records/record-document';
 import type { RecordData } from '../records/record-data';
 import type { AuditScope } from '../audit/audit-scope';
 import { type RangeReport, verifyAuditRange } from '../audit/audit-verify-range';
+import { ExploreError } from '../calc/explore/errors';
+import type { SweepPoint } from '../calc/explore';
+import { type ExplorationResult, type ExplorationTask, explorationOnce, sweepPoints } from '../explore/exploration-steps';
 
 // The CPU-heavy work of the server, as plain functions of cloneable data: a worker thread runs
 // them (compute.worker.ts), or the request thread when no worker is at hand (compute-pool.ts).
@@ -29,7 +32,11 @@ export type ComputeTask =
   /** The calculation record as .docx bytes. */
   | { task: 'record'; data: RecordData }
   /** One stretch of the audit chain (afterId < id ≤ upToId), read on its own connection. */
-  | { task: 'verifyAudit'; databaseUrl: string; scope: AuditScope; afterId: number; upToId: number };
+  | { task: 'verifyAudit'; databaseUrl: string; scope: AuditScope; afterId: number; upToId: number }
+  /** Grid points from..to−1 of a design-exploration sweep. */
+  | { task: 'sweepPoints'; sweep: Extract<ExplorationTask, { kind: 'sweep' }>; from: number; to: number }
+  /** A bonding-options appraisal, tornado or joint-bay placement. */
+  | { task: 'exploreOnce'; exploration: Exclude<ExplorationTask, { kind: 'sweep' }> };
 
 /** A catalogue error carried across the thread boundary (a class does not survive cloning). */
 export interface TaskError {
@@ -66,6 +73,8 @@ export type ComputeOutput = {
   profile: CaseResult['profile'] | null;
   record: Uint8Array;
   verifyAudit: RangeReport;
+  sweepPoints: SweepPoint[];
+  exploreOnce: ExplorationResult;
 };
 
 const hashOf = (value: unknown) => sha256Hex(canonicalJson(value));
@@ -76,6 +85,7 @@ export async function runComputeTask(t: ComputeTask): Promise<TaskResult<unknown
     return { ok: true, value: await run(t) };
   } catch (err) {
     if (err instanceof AppError) return { ok: false, error: { errorName: err.errorName, message: err.message, fields: err.fields } };
+    if (err instanceof ExploreError) return { ok: false, error: { errorName: 'InvalidInput', message: err.message, fields: [{ field: err.field, message: err.message }] } };
     if (err instanceof CalculationError) {
       return { ok: false, error: { errorName: 'InvalidInput', message: err.message, fields: [{ field: `inputs.${err.path.join('.') || '(study)'}`, message: err.message }] } };
     }
@@ -111,6 +121,10 @@ async function run(t: ComputeTask): Promise<unknown> {
       return new Uint8Array(await renderRecord(withProfiles(t.data)));
     case 'verifyAudit':
       return verifyAuditRange(t.databaseUrl, t.scope, t.afterId, t.upToId);
+    case 'sweepPoints':
+      return sweepPoints(t.sweep, t.from, t.to);
+    case 'exploreOnce':
+      return explorationOnce(t.exploration);
   }
 }
 

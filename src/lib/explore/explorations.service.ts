@@ -106,8 +106,10 @@ async function execute(s: AppServices, id: string, t: ExplorationTask) {
   } catch (err) {
     await writing;
     if (controller.signal.aborted) return;
-    const message = err instanceof ExploreError ? err.message : 'The exploration failed on the server; it has been logged.';
-    if (!(err instanceof ExploreError)) console.error('[exploration]', err);
+    // Refused as asked: the core's own words (an AppError when it came back from a worker thread).
+    const refused = err instanceof ExploreError || (err instanceof AppError && err.errorName === 'InvalidInput');
+    const message = refused ? (err as Error).message : 'The exploration failed on the server; it has been logged.';
+    if (!refused) console.error('[exploration]', err);
     await s.db.update(explorations).set({ status: 'failed', error: message, finishedAt: new Date() }).where(and(eq(explorations.id, id), eq(explorations.status, 'running'))).catch(() => undefined);
   } finally {
     running.delete(id);

@@ -1,51 +1,14 @@
-import type { BondingStudy } from '../schemas/bonding-study.schema';
-import type { LimitSet } from '../schemas/limit-set.schema';
-import {
-  appraiseBondingOptions,
-  baseValue,
-  checkSweep,
-  firstFailures,
-  inputLabel,
-  suggestPlacement,
-  sweepPoint,
-  tornado,
-  evaluateStudy,
-  type Appraisal,
-  type FirstFailure,
-  type Placement,
-  type PlacementRequest,
-  type SweepAxis,
-  type SweepPoint,
-  type Tornado,
-  type TornadoInput,
-} from '../calc/explore';
+import { checkSweep } from '../calc/explore';
+import { compute, computeParallelism, computesInWorkers } from '../compute/compute-pool';
+import { type ExplorationResult, type ExplorationTask, explorationOnce, sweepPoints, sweepResult } from './exploration-steps';
 
-// Runs an exploration task. For now in-process, in chunks of a few milliseconds with the event
-// loop free between them (setImmediate), so other requests are served during a sweep; the
-// interface (task, {onProgress, signal}) => Promise<result> is what a worker pool takes over.
+export type { ExplorationResult, ExplorationTask, PlacementResult, SweepResult } from './exploration-steps';
 
-export type ExplorationTask =
-  | { kind: 'appraisal'; study: BondingStudy; limits: LimitSet }
-  | { kind: 'sweep'; study: BondingStudy; limits: LimitSet; axes: SweepAxis[] }
-  | { kind: 'tornado'; study: BondingStudy; limits: LimitSet; inputs: TornadoInput[] }
-  | { kind: 'placement'; study: BondingStudy; limits: LimitSet; request: PlacementRequest };
-
-export interface SweepResult {
-  kind: 'sweep';
-  axes: Array<SweepAxis & { label: string; baseValue: number | null }>;
-  points: SweepPoint[];
-  firstFailures: FirstFailure[];
-}
-
-export interface PlacementResult {
-  kind: 'placement';
-  placement: Placement;
-  /** Worst standing voltage (normal load, V) and largest λ1 of the current and the suggested design, by the full solve. */
-  current: { worstStandingV: number | null; lossFactor: number | null; error?: string };
-  suggested: { worstStandingV: number | null; lossFactor: number | null; error?: string } | null;
-}
-
-export type ExplorationResult = ({ kind: 'appraisal' } & Appraisal) | SweepResult | ({ kind: 'tornado' } & Tornado) | PlacementResult;
+// Schedules an exploration. With the worker pool (src/lib/compute), a sweep goes out in small
+// batches of grid points, as many at once as the pool has threads, so progress and cancelling
+// are seen between batches and the request thread stays free; an appraisal, tornado or
+// placement is one task. Without the pool, the same work runs here in chunks of a few
+// milliseconds with the event loop free between them (setImmediate).
 
 export interface RunOptions {
   onProgress?: (progress: { done: number; total: number }) => void;
@@ -54,6 +17,8 @@ export interface RunOptions {
 
 /** Time one chunk may hold the event loop, ms. */
 const CHUNK_MS = 25;
+/** Grid points per worker task: small enough for progress every fraction of a second, large enough that the handing over is negligible. */
+const POINTS_PER_TASK = 4;
 
 const yieldToLoop = () => new Promise<void>((resolve) => setImmediate(resolve));
 
@@ -79,47 +44,43 @@ async function inChunks<T>(total: number, step: (i: number) => T, { onProgress, 
   return out;
 }
 
-function designFigures(study: BondingStudy, limits: LimitSet) {
-  const e = evaluateStudy(study, limits);
-  if (!e.ok) return { worstStandingV: null, lossFactor: null, error: e.error };
-  const normal = e.results.cases.filter((c) => c.kind === 'normal');
-  const standing = e.results.worst.find((w) => w.quantity === 'standing-voltage-normal')?.value ?? null;
-  const lf = normal.flatMap((c) => c.lossFactors.map((l) => l.lossFactor));
-  return { worstStandingV: standing, lossFactor: lf.length ? Math.max(...lf) : null };
+/** A sweep's points in batches on the worker pool, in grid order. */
+async function sweepInWorkers(task: Extract<ExplorationTask, { kind: 'sweep' }>, total: number, { onProgress, signal }: RunOptions) {
+  const batches: Array<{ from: number; to: number }> = [];
+  for (let from = 0; from < total; from += POINTS_PER_TASK) batches.push({ from, to: Math.min(total, from + POINTS_PER_TASK) });
+  const results: Awaited<ReturnType<typeof sweepPoints>>[] = new Array(batches.length);
+  let next = 0;
+  let done = 0;
+  onProgress?.({ done: 0, total });
+  const lane = async () => {
+    while (next < batches.length) {
+      throwIfAborted(signal);
+      const k = next++;
+      results[k] = await compute({ task: 'sweepPoints', sweep: task, ...batches[k] });
+      done += batches[k].to - batches[k].from;
+      onProgress?.({ done, total });
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(computeParallelism(), batches.length) }, lane));
+  throwIfAborted(signal);
+  return results.flat();
 }
 
 export async function runExploration(task: ExplorationTask, options: RunOptions = {}): Promise<ExplorationResult> {
   throwIfAborted(options.signal);
-  switch (task.kind) {
-    case 'sweep': {
-      const total = checkSweep(task.study, task.axes);
-      const points = await inChunks(total, (i) => sweepPoint(task.study, task.limits, task.axes, i), options);
-      return {
-        kind: 'sweep',
-        axes: task.axes.map((a) => ({ ...a, label: inputLabel(a.input), baseValue: baseValue(task.study, a.input) })),
-        points,
-        firstFailures: firstFailures(points),
-      };
-    }
-    case 'appraisal': {
-      // Seven options of one calculation each: one chunk, progress at the ends.
-      const [a] = await inChunks(1, () => appraiseBondingOptions(task.study, task.limits), options);
-      return { kind: 'appraisal', ...a };
-    }
-    case 'tornado': {
-      const [t] = await inChunks(1, () => tornado(task.study, task.limits, task.inputs), options);
-      return { kind: 'tornado', ...t };
-    }
-    case 'placement': {
-      const [r] = await inChunks(
-        1,
-        (): PlacementResult => {
-          const placement = suggestPlacement(task.study, task.request);
-          return { kind: 'placement', placement, current: designFigures(task.study, task.limits), suggested: placement.suggestedStudy ? designFigures(placement.suggestedStudy, task.limits) : null };
-        },
-        options,
-      );
-      return r;
-    }
+  const inWorkers = computesInWorkers();
+  if (task.kind === 'sweep') {
+    const total = checkSweep(task.study, task.axes);
+    const points = inWorkers ? await sweepInWorkers(task, total, options) : await inChunks(total, (i) => sweepPoints(task, i, i + 1)[0], options);
+    return sweepResult(task, points);
   }
+  if (!inWorkers) {
+    const [r] = await inChunks(1, () => explorationOnce(task), options);
+    return r;
+  }
+  options.onProgress?.({ done: 0, total: 1 });
+  const r = await compute({ task: 'exploreOnce', exploration: task });
+  throwIfAborted(options.signal);
+  options.onProgress?.({ done: 1, total: 1 });
+  return r;
 }

@@ -3,6 +3,7 @@ import demoLimits from '../../fixtures/limit-sets/demo-owner.json';
 import type { LimitSet } from '../../../src/lib/schemas/limit-set.schema';
 import { runExploration } from '../../../src/lib/explore/run-exploration';
 import { sweepPoint, type SweepAxis } from '../../../src/lib/calc/explore';
+import { computesInWorkers } from '../../../src/lib/compute/compute-pool';
 import { referenceStudy } from '../../helpers/reference-study';
 
 const limits = demoLimits as LimitSet;
@@ -10,6 +11,9 @@ const axes: SweepAxis[] = [{ input: { kind: 'load-current' }, fromValue: 200, to
 
 describe('exploration runner', () => {
   it('runs a sweep in chunks, reports progress up to the total and returns every point as the core computes it', async () => {
+    // The suite builds the worker bundle (tests/helpers/build-workers.setup.ts): the points come
+    // from worker threads, and must equal the same point computed on this thread.
+    expect(computesInWorkers()).toBe(true);
     const seen: number[] = [];
     const r = await runExploration({ kind: 'sweep', study: referenceStudy(), limits, axes }, { onProgress: (p) => (expect(p.total).toBe(60), seen.push(p.done)) });
     if (r.kind !== 'sweep') throw new Error('wrong kind');
