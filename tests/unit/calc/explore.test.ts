@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import demoLimits from '../../fixtures/limit-sets/demo-owner.json';
 import type { LimitSet } from '../../../src/lib/schemas/limit-set.schema';
 import type { BondingStudy } from '../../../src/lib/schemas/bonding-study.schema';
+import { calculateBondingStudy } from '../../../src/lib/calc/bonding/solve-bonding';
 import { appraiseBondingOptions, checkSweep, evaluateStudy, ExploreError, firstFailures, SWEEP_LIMITS, suggestPlacement, sweepPoint, tornado, type SweepAxis } from '../../../src/lib/calc/explore';
 import { crossBondImbalanceM, sheathReactanceOhmPerM, solidBondingLoss } from '../../../src/lib/calc/closed-form';
 import { referenceStudy, relativeError, sections } from '../../helpers/reference-study';
@@ -85,6 +86,17 @@ describe('sensitivity sweep', () => {
       expect(point.quantities).toEqual(single.figures.quantities);
       expect(point.worstMarginPct).toBe(single.figures.worstMarginPct);
     });
+  });
+
+  it('calculates in checks-only scope exactly the figures of a full calculation, without the extras', () => {
+    const fullResults = calculateBondingStudy(base);
+    const lean = calculateBondingStudy(base, 'checks');
+    // Same figures everywhere the checklist reads (points, SVLs, currents, loss factors), to the bit.
+    const figures = (r: typeof fullResults) => r.cases.map(({ profile: _p, handCheck: _h, ...rest }) => rest);
+    expect(figures(lean)).toEqual(figures(fullResults));
+    expect(lean.cases.every((c) => c.profile.series.length === 0)).toBe(true);
+    expect(lean.crossChecks).toEqual([]);
+    expect(fullResults.cases.every((c) => c.profile.series.length > 0)).toBe(true);
   });
 
   it('finds where a check starts to fail along the load current', () => {

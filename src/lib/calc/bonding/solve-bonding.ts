@@ -14,7 +14,16 @@ import { crossSectionImpedance, crossSectionKey } from './impedances';
 const PROFILE_STEPS = 6;
 
 /** Solves every case of a checked bonding study on one coupled network. */
-export function calculateBondingStudy(study: BondingStudy): BondingResults {
+/**
+ * What a calculation returns: `full`, everything the screens and the record show; `checks`, the
+ * figures the checklist is evaluated from and nothing else (no route profile, hand-check tables,
+ * closed-form cross-checks or impedance matrices), for design explorations that repeat the
+ * calculation hundreds of times. Every figure `checks` returns equals the `full` one.
+ */
+export type CalculationScope = 'full' | 'checks';
+
+export function calculateBondingStudy(study: BondingStudy, scope: CalculationScope = 'full'): BondingResults {
+  const full = scope === 'full';
   const model = buildBondingNetwork(study);
   const compiled = new Map<boolean, CompiledNetwork>();
   const networkFor = (conducting: boolean) => {
@@ -22,12 +31,12 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     return compiled.get(conducting)!;
   };
   // Each distinct cross-section's impedance matrix, once: the hand-check figures of every case use them.
-  const crossSections = distinctCrossSections(model).map((x) => ({ ...x, ...crossSectionImpedance(study, x.seg) }));
+  const crossSections = full ? distinctCrossSections(model).map((x) => ({ ...x, ...crossSectionImpedance(study, x.seg) })) : [];
   const cases = study.cases.map((c) => {
     const sources = caseSources(study, model, c);
     const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), sources, caseSegmentSources(study, model, c, sources), c);
-    const result = caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0);
-    return { ...result, handCheck: handCheck(model, crossSections, sources, result.sheathCurrents.map((s) => s.maxA)) };
+    const result = caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0, full);
+    return { ...result, handCheck: full ? handCheck(model, crossSections, sources, result.sheathCurrents.map((s) => s.maxA)) : NO_HAND_CHECK };
   });
   return {
     kind: 'bonding',
@@ -35,7 +44,7 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     routeLengthM: model.topology.lengthM,
     cases,
     worst: worstValues(cases),
-    crossChecks: bondingCrossChecks(study, model, cases),
+    crossChecks: full ? bondingCrossChecks(study, model, cases) : [],
     impedanceMatrices: crossSections.map(({ seg, sectionIds, z, labels }) => ({
       crossSection: crossSectionName(seg),
       layoutId: seg.layout.id,
@@ -46,6 +55,8 @@ export function calculateBondingStudy(study: BondingStudy): BondingResults {
     })),
   };
 }
+
+const NO_HAND_CHECK: CaseResult['handCheck'] = { referenceCurrentA: 0, emfVPerKmPerKA: [], sheathCurrentAPerKA: [] };
 
 /** Names a cross-section for the hand-check tables: layout, transposition, ECC positions. */
 const crossSectionName = (seg: BondingNetworkModel['topology']['segments'][number]) =>
@@ -103,7 +114,7 @@ function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof cas
   }
 }
 
-function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean): Omit<CaseResult, 'handCheck'> {
+function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean, withProfile = true): Omit<CaseResult, 'handCheck'> {
   const { topology, builder, cables, jointNodes } = model;
   const last = topology.joints.length - 1;
 
@@ -240,7 +251,7 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         ? [{ jointIndex: joint.userJointIndex, maxA: Math.max(...cables.map((_, k) => abs(segmentCurrents[joint.index - 1][k]))) }]
         : [],
     ),
-    profile: routeProfile(model, solution),
+    profile: withProfile ? routeProfile(model, solution) : { chainageM: [], series: [] },
   };
 }
 

@@ -3,7 +3,7 @@ import type { LimitSet } from '../../schemas/limit-set.schema';
 import type { BondingResults } from '../bonding/results';
 import { checkBondingStudy } from '../bonding/study-checks';
 import { evaluateBondingCompliance, type ChecklistItem } from '../compliance';
-import { calculateBondingStudy } from '../bonding/solve-bonding';
+import { type CalculationScope, calculateBondingStudy } from '../bonding/solve-bonding';
 import { CalculationError } from '../errors';
 
 // One study calculated and reduced to what an exploration compares: per checked quantity the
@@ -57,11 +57,11 @@ function worse(a: ChecklistItem, b: ChecklistItem): boolean {
 }
 
 /** Checks, calculates and reduces one study; a study the core refuses becomes an error in words, not a throw. */
-export function evaluateStudy(study: BondingStudy, limits: LimitSet): Evaluation {
+export function evaluateStudy(study: BondingStudy, limits: LimitSet, scope: CalculationScope = 'full'): Evaluation {
   const issues = checkBondingStudy(study);
   if (issues.length) return { ok: false, error: `${issues[0].path.join('.')}: ${issues[0].message}` };
   try {
-    const results = calculateBondingStudy(study);
+    const results = calculateBondingStudy(study, scope);
     const items = evaluateBondingCompliance(study, results, limits);
     return { ok: true, results, items, figures: reduceChecklist(items) };
   } catch (err) {

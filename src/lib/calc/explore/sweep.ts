@@ -190,7 +190,8 @@ export function studyAt(base: BondingStudy, axes: SweepAxis[], values: number[])
 /** One grid point, calculated. */
 export function sweepPoint(base: BondingStudy, limits: LimitSet, axes: SweepAxis[], index: number): SweepPoint {
   const values = gridValues(axes, index);
-  const e = evaluateStudy(studyAt(base, axes, values), limits);
+  // Checks only: a point compares checked figures, and the screens' extras would double its cost.
+  const e = evaluateStudy(studyAt(base, axes, values), limits, 'checks');
   if (!e.ok) return { values, error: e.error };
   return { values, quantities: e.figures.quantities, worstMarginPct: e.figures.worstMarginPct, failing: e.figures.failing };
 }

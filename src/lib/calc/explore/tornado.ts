@@ -36,7 +36,7 @@ export const TORNADO_MAX_INPUTS = 12;
 /** Two calculations per input; the bars sorted by swing, largest first. */
 export function tornado(base: BondingStudy, limits: LimitSet, inputs: TornadoInput[]): Tornado {
   if (inputs.length < 1 || inputs.length > TORNADO_MAX_INPUTS) throw new ExploreError(`Give between 1 and ${TORNADO_MAX_INPUTS} inputs for the tornado.`, 'inputs');
-  const b = evaluateStudy(base, limits);
+  const b = evaluateStudy(base, limits, 'checks');
   if (!b.ok) throw new ExploreError(`The study itself cannot be calculated: ${b.error}`, 'study');
   const baseMargin = b.figures.worstMarginPct;
   const bars = inputs.map(({ input, plusMinusPct }, i): TornadoBar => {
@@ -45,7 +45,7 @@ export function tornado(base: BondingStudy, limits: LimitSet, inputs: TornadoInp
     if (v === null || !(v > 0)) throw new ExploreError(`${inputLabel(input)}: the study has no value to vary.`, `inputs.${i}.input`);
     const lowValue = v * (1 - plusMinusPct / 100);
     const highValue = v * (1 + plusMinusPct / 100);
-    const at = (x: number) => evaluateStudy(applyInput(base, input, x), limits);
+    const at = (x: number) => evaluateStudy(applyInput(base, input, x), limits, 'checks');
     const lo = at(lowValue);
     const hi = at(highValue);
     const lowMarginPct = lo.ok ? lo.figures.worstMarginPct : null;
