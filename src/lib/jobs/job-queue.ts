@@ -14,6 +14,9 @@ const DEFAULT_RETRY: RetryPolicy = { retryLimit: 30, retryDelay: 10, retryBackof
  * Background jobs in PostgreSQL (pg-boss): queued on the caller's transaction, so a job exists
  * only if the change that caused it committed, and retried until its handler succeeds.
  */
+/** Jobs a worker takes at a time. */
+const WORK_BATCH = 5;
+
 export class JobQueue {
   private constructor(
     private readonly boss: PgBoss,
@@ -48,8 +51,12 @@ export class JobQueue {
 
   /** Runs `handle` for each job of a queue; a handler that throws leaves the job to be retried. */
   async work<T extends object>(queue: string, handle: (jobId: string, data: T) => Promise<void>, pollingIntervalSeconds = 1): Promise<void> {
-    await this.boss.work<T>(queue, { pollingIntervalSeconds, batchSize: 5 }, async (jobs) => {
+    let workerId: string | undefined;
+    workerId = await this.boss.work<T>(queue, { pollingIntervalSeconds, batchSize: WORK_BATCH }, async (jobs) => {
       for (const job of jobs) await handle(job.id, job.data);
+      // A full batch means more may be waiting: fetch again at once, not after the polling
+      // interval, or a burst (fifty remarks, each with its e-mail) drains at five per interval.
+      if (jobs.length === WORK_BATCH && workerId) this.boss.notifyWorker(workerId);
     });
   }
 
