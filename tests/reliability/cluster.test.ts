@@ -100,14 +100,15 @@ describe('N processes behind the local reverse proxy', () => {
   });
 
   it('counts failed sign-ins against the address the proxy saw, never one the client claims', async () => {
+    // Source addresses of their own: other suites count wrong passwords from 127.0.0.1–64 in the same database.
     const email = `nobody-${Date.now()}@sheathwise.example`;
-    // Through the proxy from 127.0.0.61, claiming to be 203.0.113.61.
-    expect(await wrongPasswordFrom(proxyPort, '127.0.0.61', '203.0.113.61', email)).toBeLessThan(500);
-    expect(await addressFailures('127.0.0.61')).toBe(1);
+    // Through the proxy from 127.0.0.171, claiming to be 203.0.113.61.
+    expect(await wrongPasswordFrom(proxyPort, '127.0.0.171', '203.0.113.61', email)).toBeLessThan(500);
+    expect(await addressFailures('127.0.0.171')).toBe(1);
     expect(await addressFailures('203.0.113.61')).toBe(0);
-    // Straight to a process from 127.0.0.62, claiming 203.0.113.62: without the proxy's secret the header is ignored.
-    expect(await wrongPasswordFrom(firstProcessPort, '127.0.0.62', '203.0.113.62', email)).toBeLessThan(500);
-    expect(await addressFailures('127.0.0.62')).toBe(1);
+    // Straight to a process from 127.0.0.172, claiming 203.0.113.62: without the proxy's secret the header is ignored.
+    expect(await wrongPasswordFrom(firstProcessPort, '127.0.0.172', '203.0.113.62', email)).toBeLessThan(500);
+    expect(await addressFailures('127.0.0.172')).toBe(1);
     expect(await addressFailures('203.0.113.62')).toBe(0);
   });
 });
