@@ -1,4 +1,4 @@
-// npm run bench:http (through scripts/bench-http.sh): request latency of the built server with
+// npm run bench:http (through scripts/bench-server.sh): request latency of the built server with
 // 10,000 studies in one project, 20 connections at once, on loopback. Figures only; no asserts.
 // The load generator shares the machine with the server: on 2 cores, run it with nothing else busy.
 import { gzipSync } from 'node:zlib';

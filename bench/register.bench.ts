@@ -1,4 +1,4 @@
-// npm run bench:register (through scripts/bench-register.sh): latency of the register's pages
+// npm run bench:register (through scripts/bench-server.sh): latency of the register's pages
 // with 5,000 assets in one project (half covered by the demo's issued study, each owing four
 // obligations with due dates spread over two years), 20 connections, on loopback. Figures only;
 // the target is p95 ≤ 100 ms per route (issue 16). On 2 shared cores, run it with nothing else busy.

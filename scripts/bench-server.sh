@@ -1,12 +1,15 @@
 #!/usr/bin/env bash
-# npm run bench:register: the built server on a throwaway database with 5,000 register assets in one
-# project, loaded with autocannon on loopback. Prints figures and the p95 target; asserts nothing.
+# npm run bench:http / bench:register: the built server on a throwaway database (the demo
+# data), then the named benchmark (bench/http.bench.ts seeds 10,000 studies, bench/register.bench.ts
+# 5,000 register assets) loads it with autocannon on loopback. Prints figures; asserts nothing.
+# Usage: scripts/bench-server.sh bench/<name>.bench.ts
 set -euo pipefail
+BENCH="${1:?name the benchmark, e.g. bench/http.bench.ts}"
 source "$(dirname "$0")/services.sh"
 
 export SHEATHWISE_PORT="${SHEATHWISE_BENCH_PORT:-4395}"
 PG_PORT="${SHEATHWISE_BENCH_PG_PORT:-55495}"
-TMP="$(mktemp -d /tmp/sheathwise-bench-register.XXXXXX)"
+TMP="$(mktemp -d /tmp/sheathwise-bench.XXXXXX)"
 chmod 755 "$TMP"
 export BUILD_LOG="$TMP/build.log" SERVER_LOG="$TMP/server.log"
 cleanup() { stop_started; rm -rf "$TMP"; }
@@ -24,4 +27,4 @@ build_app
 start_server
 export APP_URL="http://127.0.0.1:$SHEATHWISE_PORT"
 cd "$ROOT"
-node_modules/.bin/tsx bench/register.bench.ts
+node_modules/.bin/tsx "$BENCH"
