@@ -55,14 +55,21 @@ export default function StudyForm({ detail, readOnly, schema, children }: { deta
     };
     const sub = watch(() => {
       clearTimeout(timer);
-      timer = setTimeout(keep, 250);
+      timer = setTimeout(() => { timer = undefined; keep(); }, 250);
     });
+    // A reload or a closed tab within the debounce would otherwise lose the last edits: unmount
+    // cleanups do not run on unload, so the pending write is flushed when the page goes.
+    const flush = () => {
+      if (!timer) return;
+      clearTimeout(timer);
+      timer = undefined;
+      keep();
+    };
+    window.addEventListener('pagehide', flush);
     return () => {
       sub.unsubscribe();
-      if (timer) {
-        clearTimeout(timer);
-        keep();
-      }
+      window.removeEventListener('pagehide', flush);
+      flush();
     };
   }, [r.id, r.version]); // eslint-disable-line react-hooks/exhaustive-deps
 
