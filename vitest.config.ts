@@ -7,6 +7,8 @@ export default defineConfig({
     globalSetup: ['tests/helpers/build-workers.setup.ts'],
     testTimeout: 30_000,
     hookTimeout: 60_000,
+    // expect.poll gives up after 1 s by default: too short for a browser on a busy 2-core machine.
+    expect: { poll: { timeout: 10_000 } },
     // Browser and HTTP tests share one server and database; files run one after another
     // so a lockout test cannot disturb a sign-in test.
     fileParallelism: false,
