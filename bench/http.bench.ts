@@ -101,10 +101,23 @@ await db.end();
 
 const designer = await signedIn('designer@sheathwise.example', DEMO_PASSWORD);
 const cookie = designer.cookieHeader();
-const sorts = ['code', 'title', 'updated'];
+// Positions all through the list, for every sort both ways: walked once in pages of 200 (a
+// position is valid for any page size), then requested in pages of 25 as the table does.
+const positions: string[] = [];
+for (const sort of ['code', 'title', 'updated']) {
+  for (const direction of ['asc', 'desc']) {
+    let after: string | null = null;
+    do {
+      const q = new URLSearchParams({ pageSize: '200', sort, direction, ...(after ? { after } : {}) });
+      const page = (await (await fetch(`${base}/api/projects/${projectId}/studies?${q}`, { headers: { cookie } })).json()) as { next: string | null };
+      after = page.next;
+      if (after) positions.push(`sort=${sort}&direction=${direction}&after=${after}`);
+    } while (after);
+  }
+}
 const studyPages = Array.from({ length: 60 }, (_, i) => ({
   method: 'GET' as const,
-  path: `/api/projects/${projectId}/studies?page=${(i * 37) % 400}&pageSize=25&sort=${sorts[i % 3]}&direction=${i % 2 ? 'asc' : 'desc'}`,
+  path: `/api/projects/${projectId}/studies?pageSize=25&${i % 10 === 0 ? `sort=code` : positions[(i * 37) % positions.length]}`,
 }));
 console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route, ${STUDIES} studies in the project\n`);
 await load('studies list (any page, any sort)', cookie, studyPages);

@@ -1,11 +1,12 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { getSession } from 'auth-astro/server';
 import { database, services } from './lib/server/services.server';
 import { AppError } from './lib/errors';
 import { errorResponse } from './lib/server/http';
 import { securityHeaders } from './lib/server/security-headers';
 import { authRequestGuard } from './lib/auth/auth-request-guard';
 import { signedInUser } from './lib/auth/sessions';
+import { sessionClaims } from './lib/auth/session-token';
+import { serverConfig } from './lib/config.server';
 
 // Reachable without a session: sign-in, Auth.js's own routes, the health probe, accepting an
 // invitation (the link's token is the credential), static files.
@@ -20,9 +21,9 @@ const appMiddleware = defineMiddleware(async (context, next) => {
   context.locals.user = null;
   if (PUBLIC_PREFIXES.some((p) => pathname.startsWith(p))) return next();
 
-  const session = await getSession(context.request);
+  const claims = await sessionClaims((name) => context.cookies.get(name)?.value, serverConfig().AUTH_SECRET);
   try {
-    context.locals.user = await signedInUser(database(), session);
+    context.locals.user = await signedInUser(database(), claims);
   } catch (err) {
     // The database is down: say so (503 with Retry-After) rather than fail with a bare 500.
     const response = errorResponse(err);

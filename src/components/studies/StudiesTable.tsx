@@ -26,10 +26,12 @@ const columns = [
 function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: boolean }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'code', desc: false }]);
   const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 10 });
+  // Keyset paging: the position each page starts after, learnt from the page before it.
+  const [starts, setStarts] = useState<Array<string | undefined>>([undefined]);
   const [filters, setFilters] = useState<{ state?: string; kind?: string; search?: string }>({});
   const [creating, setCreating] = useState(false);
   const params: StudyListParams = {
-    page: pagination.pageIndex,
+    after: starts[pagination.pageIndex],
     pageSize: pagination.pageSize,
     sort: (sorting[0]?.id ?? 'code') as StudyListParams['sort'],
     direction: sorting[0]?.desc ? 'desc' : 'asc',
@@ -44,12 +46,25 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
     manualSorting: true,
     rowCount: data?.total ?? 0,
     state: { sorting, pagination },
-    onSortingChange: setSorting,
+    onSortingChange: (s) => {
+      setSorting(s);
+      backToFirstPage();
+    },
     onPaginationChange: setPagination,
   });
+  const backToFirstPage = () => {
+    setStarts([undefined]);
+    setPagination((p) => ({ ...p, pageIndex: 0 }));
+  };
+  const nextPage = () => {
+    if (!data?.next) return;
+    const next = data.next;
+    setStarts((s) => [...s.slice(0, pagination.pageIndex + 1), next]);
+    table.nextPage();
+  };
   const setFilter = (key: keyof typeof filters, value: string) => {
     setFilters((f) => ({ ...f, [key]: value || undefined }));
-    setPagination((p) => ({ ...p, pageIndex: 0 }));
+    backToFirstPage();
   };
 
   return (
@@ -114,7 +129,7 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
         <div className="flex items-center gap-2 text-sm">
           <Button tone="plain" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</Button>
           <span>Page {pagination.pageIndex + 1} of {Math.max(1, table.getPageCount())} ({data.total} studies)</span>
-          <Button tone="plain" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>Next</Button>
+          <Button tone="plain" onClick={nextPage} disabled={!data.next || isFetching}>Next</Button>
         </div>
       )}
     </div>

@@ -1,8 +1,9 @@
-import { and, eq, gt, isNull, lt, sql } from 'drizzle-orm';
+import { and, eq, isNull, lt, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
-import { userSessions } from '../db/schema';
-import { loadSessionUser } from '../db/users.repo';
+import { memberships, userSessions, users } from '../db/schema';
+import type { ProjectRole } from '../db/schema/projects';
 import type { SessionUser } from './roles';
+import type { SessionClaims } from './session-token';
 
 /** Records a new sign-in; the returned id goes into the JWT as `sid`. */
 export async function openSession(db: Database, userId: string, maxAgeSeconds: number): Promise<string> {
@@ -22,23 +23,22 @@ export async function revokeSession(db: Database, sessionId: string): Promise<vo
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-async function sessionIsLive(db: Database, sessionId: string, userId: string): Promise<boolean> {
-  if (!UUID.test(sessionId) || !UUID.test(userId)) return false;
-  const rows = await db
-    .select({ id: userSessions.id })
-    .from(userSessions)
-    .where(and(eq(userSessions.id, sessionId), eq(userSessions.userId, userId), isNull(userSessions.revokedAt), gt(userSessions.expiresAt, sql`now()`)));
-  return rows.length === 1;
-}
-
 /**
- * The signed-in person for a decoded Auth.js session, or null when there is none, when it names
- * no server-side session (a token from before sessions were recorded), or when that session was
- * ended or has expired. Database errors propagate, so an outage is not mistaken for signing out.
+ * The signed-in person for a session's claims, or null when there are none, or when the session
+ * they name was ended or has expired, or the person no longer exists. One query on every request:
+ * the open session, the person and their roles per project. Database errors propagate, so an
+ * outage is not mistaken for signing out.
  */
-export async function signedInUser(db: Database, session: { user?: unknown } | null): Promise<SessionUser | null> {
-  const claims = (session?.user ?? {}) as { id?: unknown; sid?: unknown };
-  if (typeof claims.id !== 'string' || typeof claims.sid !== 'string') return null;
-  if (!(await sessionIsLive(db, claims.sid, claims.id))) return null;
-  return loadSessionUser(db, claims.id);
+export async function signedInUser(db: Database, claims: SessionClaims | null): Promise<SessionUser | null> {
+  if (!claims || !UUID.test(claims.sid) || !UUID.test(claims.uid)) return null;
+  const { rows } = await db.execute<{ id: string; email: string; name: string; is_admin: boolean; roles: Array<[string, ProjectRole]> }>(sql`
+    select u.id, u.email, u.name, u.is_admin,
+      coalesce((select json_agg(json_build_array(m.project_id, m.role)) from ${memberships} m where m.user_id = u.id), '[]'::json) as roles
+    from ${userSessions} s join ${users} u on u.id = s.user_id
+    where s.id = ${claims.sid}::uuid and s.user_id = ${claims.uid}::uuid and s.revoked_at is null and s.expires_at > now()`);
+  const [row] = rows;
+  if (!row) return null;
+  const projectRoles: Record<string, ProjectRole[]> = {};
+  for (const [projectId, role] of row.roles) (projectRoles[projectId] ??= []).push(role);
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.is_admin, projectRoles };
 }

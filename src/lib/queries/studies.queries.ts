@@ -15,7 +15,8 @@ export interface StudyRow {
 }
 
 export interface StudyListParams {
-  page: number;
+  /** The `next` of the page before; absent for the first page. */
+  after?: string;
   pageSize: number;
   sort: 'code' | 'title' | 'updated';
   direction: 'asc' | 'desc';
@@ -29,7 +30,7 @@ export const studiesQuery = (projectId: string, p: StudyListParams) =>
     queryKey: ['studies', projectId, p],
     queryFn: () => {
       const q = new URLSearchParams(Object.entries(p).filter(([, v]) => v !== undefined && v !== '').map(([k, v]) => [k, String(v)]));
-      return api<{ total: number; rows: StudyRow[] }>(`/api/projects/${projectId}/studies?${q}`);
+      return api<{ total: number; rows: StudyRow[]; next: string | null }>(`/api/projects/${projectId}/studies?${q}`);
     },
     placeholderData: keepPreviousData,
   });

@@ -8,10 +8,21 @@ export interface HealthReport {
   mail: { ok: boolean; detail?: string };
 }
 
+// Probes in flight, shared: twenty health requests at once cost one query and one SMTP greeting,
+// not twenty, while every answer is still as fresh as the request (nothing is kept afterwards).
+let inFlight: Promise<HealthReport> | null = null;
+
 /** Answers whether the database takes a query and the SMTP server greets, each within 2 s. */
-export async function checkHealth(db: Database, smtp: { host: string; port: number }): Promise<HealthReport> {
-  const [database, mail] = await Promise.all([probeDatabase(db), probeSmtp(smtp.host, smtp.port)]);
-  return { ok: database.ok && mail.ok, database, mail };
+export function checkHealth(db: Database, smtp: { host: string; port: number }): Promise<HealthReport> {
+  inFlight ??= (async () => {
+    try {
+      const [database, mail] = await Promise.all([probeDatabase(db), probeSmtp(smtp.host, smtp.port)]);
+      return { ok: database.ok && mail.ok, database, mail };
+    } finally {
+      inFlight = null;
+    }
+  })();
+  return inFlight;
 }
 
 async function probeDatabase(db: Database) {

@@ -1,9 +1,10 @@
-import { and, asc, desc, eq, ilike, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
 import { checklistItems, limitSets, revisions, studies, studySummaries } from '../db/schema';
 import { inTransaction } from '../db/transaction';
+import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
 import { withLockedRevision } from '../db/revision-lock';
 import { appendAudit } from '../audit/audit-log';
 import { inputsHash } from '../canonical-json';
@@ -156,8 +157,9 @@ export async function startNewRevision(s: AppServices, actor: SessionUser, study
 }
 
 export interface StudyListQuery {
-  page: number;
   pageSize: number;
+  /** Position of the last row of the previous page (from its `next`); absent for the first page. */
+  after?: string;
   sort: 'code' | 'title' | 'updated';
   direction: 'asc' | 'desc';
   state?: RevisionState;
@@ -166,40 +168,52 @@ export interface StudyListQuery {
 }
 
 /**
- * A page of a project's studies with their latest revision, sorted and filtered in SQL. It reads
- * `study_summaries` (kept current by triggers), so the cost does not grow with the number of
- * revisions, checklist items or remarks; every sort has an index ending in the study id.
+ * A page of a project's studies with their latest revision, keyset-paged: one indexed range
+ * read of `study_summaries` (kept current by triggers, the study's code and title included),
+ * so a page costs the same at any depth and however many revisions, checklist items or remarks
+ * there are. `next` is the position to ask for the page after this one; null on the last page.
  */
 export async function listStudies(db: Database, projectId: string, q: StudyListQuery) {
-  const where = and(
-    eq(studies.projectId, projectId),
-    q.kind ? eq(studies.kind, q.kind) : undefined,
-    q.state ? eq(studySummaries.state, q.state) : undefined,
-    q.search ? or(ilike(studies.code, `%${likeEscaped(q.search)}%`), ilike(studies.title, `%${likeEscaped(q.search)}%`)) : undefined,
+  const s = studySummaries;
+  const filters = and(
+    eq(s.projectId, projectId),
+    q.kind ? eq(s.kind, q.kind) : undefined,
+    q.state ? eq(s.state, q.state) : undefined,
+    q.search ? or(ilike(s.code, `%${likeEscaped(q.search)}%`), ilike(s.title, `%${likeEscaped(q.search)}%`)) : undefined,
   );
-  const sortColumn = q.sort === 'code' ? studies.code : q.sort === 'title' ? studies.title : studySummaries.updatedAt;
+  const sortColumn = q.sort === 'code' ? s.code : q.sort === 'title' ? s.title : s.updatedAt;
   const order = q.direction === 'asc' ? asc : desc;
-  const base = db
-    .select({
-      id: studies.id,
-      code: studies.code,
-      title: studies.title,
-      kind: studies.kind,
-      revisionId: studySummaries.revisionId,
-      revisionNumber: studySummaries.revisionNumber,
-      state: studySummaries.state,
-      updatedAt: studySummaries.updatedAt,
-      worstMarginPct: studySummaries.worstMarginPct,
-      openRemarks: studySummaries.openRemarks,
-    })
-    .from(studies)
-    .innerJoin(studySummaries, eq(studySummaries.studyId, studies.id))
-    .where(where);
-  const [[{ total }], rows] = await Promise.all([
-    db.select({ total: sql<number>`count(*)::int` }).from(studies).innerJoin(studySummaries, eq(studySummaries.studyId, studies.id)).where(where),
-    base.orderBy(order(sortColumn), order(studies.id)).limit(q.pageSize).offset(q.page * q.pageSize),
+  let position: SQL | undefined;
+  if (q.after) {
+    const [key, id] = decodeCursor(q.after, 'the studies list');
+    const typedKey = q.sort === 'updated' ? sql`${key}::timestamptz` : sql`${key}::text`;
+    position = q.direction === 'asc' ? sql`(${sortColumn}, ${s.studyId}) > (${typedKey}, ${id}::uuid)` : sql`(${sortColumn}, ${s.studyId}) < (${typedKey}, ${id}::uuid)`;
+  }
+  const [[{ total }], found] = await Promise.all([
+    db.select({ total: sql<number>`count(*)::int` }).from(s).where(filters),
+    db
+      .select({
+        id: s.studyId,
+        code: s.code,
+        title: s.title,
+        kind: s.kind,
+        revisionId: s.revisionId,
+        revisionNumber: s.revisionNumber,
+        state: s.state,
+        updatedAt: s.updatedAt,
+        worstMarginPct: s.worstMarginPct,
+        openRemarks: s.openRemarks,
+        sortKey: sql<string>`${sortColumn}::text`,
+      })
+      .from(s)
+      .where(and(filters, position))
+      .orderBy(order(sortColumn), order(s.studyId))
+      .limit(q.pageSize + 1),
   ]);
-  return { total, page: q.page, pageSize: q.pageSize, rows };
+  const more = found.length > q.pageSize;
+  const rows = found.slice(0, q.pageSize).map(({ sortKey: _key, ...row }) => row);
+  const last = found[rows.length - 1];
+  return { total, pageSize: q.pageSize, rows, next: more && last ? encodeCursor(last.sortKey, last.id) : null };
 }
 
 /** A search term with LIKE's own wildcards taken literally. */

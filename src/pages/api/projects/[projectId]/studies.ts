@@ -8,7 +8,9 @@ import { newStudySchema, listQuerySchema } from '../../../../lib/schemas/revisio
 import { revisionStates } from '../../../../lib/workflow/revision.machine';
 import { AppError } from '../../../../lib/errors';
 
-const studyListSchema = listQuerySchema.extend({
+const studyListSchema = z.object({
+  pageSize: listQuerySchema.shape.pageSize,
+  after: z.string().max(2000).optional(),
   sort: z.enum(['code', 'title', 'updated']).default('code'),
   direction: z.enum(['asc', 'desc']).default('asc'),
   state: z.enum(revisionStates).optional(),
