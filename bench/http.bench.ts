@@ -97,6 +97,8 @@ await db.connect();
 const projectId = await seedStudies(db);
 await seedAuditEvents(db);
 const { rows: [someRevision] } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code = 'K05000'`);
+// Twenty designers calculating their own studies: the requests cycle over 200 revisions.
+const { rows: toCalculate } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code like 'K%' order by s.code limit 200`);
 await db.end();
 
 const designer = await signedIn('designer@sheathwise.example', DEMO_PASSWORD);
@@ -124,7 +126,7 @@ await load('studies list (any page, any sort)', cookie, studyPages);
 await load('revision detail', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}` }]);
 await load('route profile of a case (recomputed)', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}/profile?caseId=LOAD` }]);
 await load('health', cookie, [{ method: 'GET', path: '/api/health' }]);
-await load('calculate (reference study)', cookie, [{ method: 'POST', path: `/api/revisions/${someRevision.id}/calculate` }]);
+await load('calculate (reference study, 200 revisions)', cookie, toCalculate.map((r: { id: string }) => ({ method: 'POST' as const, path: `/api/revisions/${r.id}/calculate` })));
 // One more calculation, for the incremental verification below to have new events.
 const calculateOnce = async () => (await fetch(`${base}/api/revisions/${someRevision.id}/calculate`, { method: 'POST', headers: { cookie, origin: base } })).arrayBuffer();
 

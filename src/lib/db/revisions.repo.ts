@@ -33,17 +33,7 @@ export async function loadRevisionScope(db: Database, revisionId: string, { lock
  * A revision and its study for a calculation: the results as JSON text (null before any
  * calculation), so that a worker thread parses them and the request thread never does.
  */
-export async function revisionForCalculation(db: Database, revisionId: string) {
-  assertId(revisionId, 'revision');
-  const { results: _results, ...columns } = getTableColumns(revisions);
-  const [row] = await db
-    .select({ revision: columns, study: studies, resultsJson: sql<string | null>`${revisions.results}::text` })
-    .from(revisions)
-    .innerJoin(studies, eq(studies.id, revisions.studyId))
-    .where(eq(revisions.id, revisionId));
-  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
-  return row;
-}
+export const revisionForCalculation = (db: Database, revisionId: string) => loadRevisionScopeWithResultsText(db, revisionId);
 
 export async function loadStudyScope(db: Database, studyId: string) {
   assertId(studyId, 'study');
@@ -74,19 +64,47 @@ export async function userName(db: Database, id: string): Promise<string> {
 /** Everything a revision screen or record shows. */
 export async function revisionDetail(db: Database, revisionId: string) {
   const scope = await loadRevisionScope(db, revisionId);
-  const [checklist, remarkRows, values, signatures, people] = await Promise.all([
+  return { ...scope, ...(await revisionParts(db, revisionId)) };
+}
+
+/**
+ * A revision with its study and project for the revision screen, its results as the stored JSON
+ * text: the API passes them through untouched (revisionDetailJson) instead of parsing and
+ * re-serialising tens of kilobytes on every read.
+ */
+export async function loadRevisionScopeWithResultsText(db: Database, revisionId: string) {
+  assertId(revisionId, 'revision');
+  const { results: _results, ...columns } = getTableColumns(revisions);
+  const [row] = await db
+    .select({ revision: columns, study: studies, project: projects, resultsJson: sql<string | null>`${revisions.results}::text` })
+    .from(revisions)
+    .innerJoin(studies, eq(studies.id, revisions.studyId))
+    .innerJoin(projects, eq(projects.id, studies.projectId))
+    .where(eq(revisions.id, revisionId));
+  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+  return row;
+}
+
+/** The JSON text of `revisionDetail` for a scope from loadRevisionScopeWithResultsText, results spliced in as stored. */
+export async function revisionDetailJson(db: Database, scope: Awaited<ReturnType<typeof loadRevisionScopeWithResultsText>>): Promise<string> {
+  const { revision, resultsJson, ...rest } = scope;
+  const parts = await revisionParts(db, revision.id);
+  const revisionText = JSON.stringify(revision);
+  return `{"revision":${revisionText.slice(0, -1)},"results":${resultsJson ?? 'null'}},${JSON.stringify({ ...rest, ...parts }).slice(1)}`;
+}
+
+/** What a revision screen shows beside the revision itself: checklist, remarks, check values, sign-offs. */
+async function revisionParts(db: Database, revisionId: string) {
+  const [checklist, remarkRows, values, signatures] = await Promise.all([
     db.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId)).orderBy(asc(checklistItems.sortOrder)),
-    db.select().from(remarks).where(eq(remarks.revisionId, revisionId)).orderBy(asc(remarks.createdAt)),
+    db.select({ remark: remarks, authorName: users.name }).from(remarks).innerJoin(users, eq(users.id, remarks.authorId)).where(eq(remarks.revisionId, revisionId)).orderBy(asc(remarks.createdAt)),
     db.select().from(checkValues).where(eq(checkValues.revisionId, revisionId)).orderBy(asc(checkValues.createdAt)),
-    db.select().from(signOffs).where(eq(signOffs.revisionId, revisionId)).orderBy(asc(signOffs.createdAt)),
-    db.select({ id: users.id, name: users.name }).from(users),
+    db.select({ signOff: signOffs, name: users.name }).from(signOffs).innerJoin(users, eq(users.id, signOffs.userId)).where(eq(signOffs.revisionId, revisionId)).orderBy(asc(signOffs.createdAt)),
   ]);
-  const nameOf = new Map(people.map((p) => [p.id, p.name]));
   return {
-    ...scope,
     checklist,
-    remarks: remarkRows.map((r) => ({ ...r, authorName: nameOf.get(r.authorId) ?? '' })),
+    remarks: remarkRows.map((r) => ({ ...r.remark, authorName: r.authorName })),
     checkValues: values,
-    signOffs: signatures.map((s) => ({ ...s, name: nameOf.get(s.userId) ?? '' })),
+    signOffs: signatures.map((s) => ({ ...s.signOff, name: s.name })),
   };
 }

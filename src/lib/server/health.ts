@@ -8,21 +8,33 @@ export interface HealthReport {
   mail: { ok: boolean; detail?: string };
 }
 
-// Probes in flight, shared: twenty health requests at once cost one query and one SMTP greeting,
-// not twenty, while every answer is still as fresh as the request (nothing is kept afterwards).
-let inFlight: Promise<HealthReport> | null = null;
+// Probes in flight are shared: twenty health requests at once cost one query, not twenty. The
+// SMTP answer is remembered for a few seconds: a mail server may wait for a reverse DNS lookup
+// before its greeting (about 100 ms here), which would make every health answer that slow.
+const SMTP_REMEMBERED_MS = 5000;
+let databaseInFlight: Promise<HealthReport['database']> | null = null;
+let smtpInFlight: Promise<HealthReport['mail']> | null = null;
+let smtpKnown: { at: number; result: HealthReport['mail'] } | null = null;
+
+function shared<T>(get: () => Promise<T> | null, set: (p: Promise<T> | null) => void, probe: () => Promise<T>): Promise<T> {
+  const running = get();
+  if (running) return running;
+  const started = probe().finally(() => set(null));
+  set(started);
+  return started;
+}
 
 /** Answers whether the database takes a query and the SMTP server greets, each within 2 s. */
-export function checkHealth(db: Database, smtp: { host: string; port: number }): Promise<HealthReport> {
-  inFlight ??= (async () => {
-    try {
-      const [database, mail] = await Promise.all([probeDatabase(db), probeSmtp(smtp.host, smtp.port)]);
-      return { ok: database.ok && mail.ok, database, mail };
-    } finally {
-      inFlight = null;
-    }
-  })();
-  return inFlight;
+export async function checkHealth(db: Database, smtp: { host: string; port: number }): Promise<HealthReport> {
+  const database = shared(() => databaseInFlight, (p) => (databaseInFlight = p), () => probeDatabase(db));
+  const fresh = smtpKnown && Date.now() - smtpKnown.at < SMTP_REMEMBERED_MS ? smtpKnown.result : null;
+  const mail = fresh ?? shared(() => smtpInFlight, (p) => (smtpInFlight = p), async () => {
+    const result = await probeSmtp(smtp.host, smtp.port);
+    smtpKnown = { at: Date.now(), result };
+    return result;
+  });
+  const [d, m] = await Promise.all([database, mail]);
+  return { ok: d.ok && m.ok, database: d, mail: m };
 }
 
 async function probeDatabase(db: Database) {

@@ -90,7 +90,8 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
  */
 export async function calculateRevision(s: AppServices, actor: SessionUser, revisionId: string) {
   // The cheap refusals (state, designer) come first; the calculation runs outside the lock, and
-  // the version check under the lock proves the inputs are still the ones calculated. The
+  // the inputs hash under the lock proves the inputs are still the ones calculated (two people
+  // calculating the same inputs at once both succeed; an edit in between is a conflict). The
   // results travel as JSON text: the request thread never parses or serialises them.
   const { revision, study, resultsJson: storedJson } = await revisionForCalculation(s.db, revisionId);
   assertEditableBy(actor, revision);
@@ -103,7 +104,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
   const { inputs, resultsJson, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
   return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
     assertEditableBy(actor, current);
-    if (current.version !== revision.version) throw new AppError('Conflict');
+    if (current.inputsHash !== revision.inputsHash) throw new AppError('Conflict', 'The inputs changed while they were being calculated: calculate again.');
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
       .update(revisions)
