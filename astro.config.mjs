@@ -11,7 +11,8 @@ const port = Number(process.env.SHEATHWISE_PORT ?? 4321);
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  // Middleware mode: scripts/serve.mjs is the server, and serves the built files itself.
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), auth(), validationGuard()],
   server: { host: '127.0.0.1', port },
   security: {
