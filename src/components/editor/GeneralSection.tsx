@@ -1,5 +1,6 @@
 import { useFormContext } from 'react-hook-form';
 import { Choice, Num, Text, box } from './fields';
+import BondingLeadFields from './BondingLeadFields';
 
 /** Study-wide data: frequency, soil, electrodes, bonding leads, touch-voltage ground, adiabatic temperatures. */
 export default function GeneralSection() {
@@ -22,8 +23,7 @@ export default function GeneralSection() {
       </div>
       <h4 className="mt-3 text-sm font-semibold">Bonding leads</h4>
       <div className="flex flex-wrap items-end gap-3">
-        <Num name="bondingLeadMilliohm.r" label="Lead resistance (mΩ)" />
-        <Num name="bondingLeadMilliohm.x" label="Lead reactance (mΩ)" />
+        <BondingLeadFields />
         <label className="flex items-center gap-1 text-xs">
           <input type="checkbox" aria-label="Check the leads' fault current" checked={!!leads} onChange={(e) => setValue('bondingLeads', e.target.checked ? { crossSectionMm2: 240, material: 'copper' } : undefined, { shouldDirty: true })} /> Check the leads' fault current
         </label>
