@@ -5,12 +5,16 @@ import { DEMO, demoIds, json, send } from '../helpers/workflow-api';
 import { signedIn, type HttpSession } from '../helpers/http-session';
 import { DEMO_PASSWORD } from '../helpers/env';
 import { formatQuantity } from '../../src/lib/format';
+import { cableConstructionSchema } from '../../src/lib/schemas/bonding-study.schema';
+import { deriveCableParameters } from '../../src/lib/calc/cable/derive-cable';
+import { STARTING_CONSTRUCTION } from '../../src/components/editor/CableConstructionFields';
 import { defaultBondingInputs, defaultExposureInputs } from '../../src/lib/studies/default-inputs';
 
 // The forms in Debian's Chromium, for what the JSON alone used to hold: an exposure study
 // entered through its own form (a bad field refused beside it, then saved, calculated and its
 // results shown); and, in a bonding study, joint bay names, ECC transposition points at joints
-// and bonding leads given by length, each saved, calculated and told back by name.
+// and bonding leads given by length, and the study's cable type entered as its construction,
+// each saved, calculated and told back by name.
 
 const sessions: Array<{ page: Page; close: () => Promise<void>; errors: string[] }> = [];
 let designer: HttpSession;
@@ -140,8 +144,22 @@ describe('the study forms', () => {
     await page.getByTestId('lead-derivation').waitFor();
     expect(await page.getByTestId('lead-derivation').textContent()).toContain('IEC 60287-1-1');
 
+    // The study's own cable type entered as its construction: a bad figure refused beside it.
+    await page.getByLabel('Entry of cable type 1').selectOption('construction');
+    await fill(page, 'Conductor cross-section of CT1 (mm²)', '5000');
+    await expect.poll(() => page.locator('[data-error-for="cableTypes.0.construction.conductor.crossSectionMm2"]').textContent()).toContain('larger than any cable made');
+    await fill(page, 'Conductor cross-section of CT1 (mm²)', '800');
+    await page.getByTestId('cable-derivation').waitFor();
+    expect(await page.getByTestId('cable-derivation').textContent()).toContain('IEC 60287-1-1');
+    await screenshot(page, 'bonding-form-new-fields');
+
     await saveAndCalculate(page);
     const r = await stored(revisionId);
+    expect(r.inputs.cableTypes[0]).toMatchObject({ entry: 'construction', construction: { conductor: { material: 'copper', crossSectionMm2: 800 } } });
+    // Derived on saving, from the construction as edited (not the starting 1000 mm²).
+    const derived = (construction: unknown) => deriveCableParameters(cableConstructionSchema.parse(construction)).conductorResistanceOhmPerKm;
+    expect(r.inputs.cableTypes[0].conductorResistanceOhmPerKm).toBe(derived(r.inputs.cableTypes[0].construction));
+    expect(r.inputs.cableTypes[0].conductorResistanceOhmPerKm).not.toBe(derived(STARTING_CONSTRUCTION));
     expect(r.inputs.jointNames).toEqual([{ jointIndex: 1, name: 'Mill Lane' }, { jointIndex: 2, name: 'Ford Bay' }]);
     expect(r.inputs.eccs[0]).toMatchObject({ id: 'E1', transposedAtMidpoint: false, transposedAtJoints: [1, 2] });
     expect(r.inputs.bondingLeadLength).toEqual({ lengthM: 8 });
