@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { bondingStudySchema } from '../../../src/lib/schemas/bonding-study.schema';
 import { calculateBondingStudy } from '../../../src/lib/calc/bonding/solve-bonding';
 import { jointInWords, jointShortLabel } from '../../../src/lib/calc/bonding/joint-names';
+import { evaluateBondingCompliance } from '../../../src/lib/calc/compliance';
 
 // Joint bays may carry their own names; results name them, and nothing else changes.
 
@@ -17,6 +18,19 @@ describe('joint bay names', () => {
     expect(named.cases[0].points.find((p) => p.jointIndex === 1)!.label).toMatch(/^joint 1 \(/);
     const strip = (r: typeof plain) => JSON.stringify(r).replace(/joint bay Bay 3 \(joint 2\)/g, 'joint 2');
     expect(strip(named)).toBe(strip(plain));
+  });
+
+  it('name the joint in the checklist, and only there the wording changes', () => {
+    const noLimits = { name: 'none', version: 1, limits: {} };
+    const items = (input: unknown) => {
+      const study = bondingStudySchema.parse(input);
+      return evaluateBondingCompliance(study, calculateBondingStudy(study), noLimits as never);
+    };
+    const plain = items(fixture());
+    const named = items({ ...fixture(), jointNames: [{ jointIndex: 4, name: 'Ford Bay' }] });
+    const svlAt4 = named.filter((i) => i.where?.includes('joint bay Ford Bay (joint 4)'));
+    expect(svlAt4.length).toBeGreaterThan(0);
+    expect(JSON.stringify(named).replace(/joint bay Ford Bay \(joint 4\)/g, 'joint 4')).toBe(JSON.stringify(plain));
   });
 
   it('are words for screens and sentences, with J<n> and "joint n" when unnamed', () => {
