@@ -142,6 +142,8 @@ describe('the study forms', () => {
     await expect.poll(() => page.locator('[data-error-for="bondingLeadLength.resistanceMilliohmPerM"]').textContent()).toContain("leads' cross-section and material");
     await page.getByLabel("Check the leads' fault current").check();
     await page.getByTestId('lead-derivation').waitFor();
+    // The conductor now gives the resistance: the error beside the field goes.
+    await expect.poll(() => page.locator('[data-error-for="bondingLeadLength.resistanceMilliohmPerM"]').count()).toBe(0);
     expect(await page.getByTestId('lead-derivation').textContent()).toContain('IEC 60287-1-1');
 
     // The study's own cable type entered as its construction: a bad figure refused beside it.
