@@ -5,6 +5,9 @@ import { cableCatalogueQuery } from '../../lib/queries/catalogue.queries';
 import { Button } from '../ui/parts';
 import { Num, Text, box } from './fields';
 import { removeCircuit } from '../../lib/route-edits/circuit-edits';
+import { cableConstructionSchema } from '../../lib/schemas/bonding-study.schema';
+import { deriveCableParameters } from '../../lib/calc/cable/derive-cable';
+import CableConstructionFields, { DERIVED_FIGURES, STARTING_CONSTRUCTION } from './CableConstructionFields';
 
 /** Cable types (typed here or from the catalogue) and the circuits, each with its cable type. */
 export default function CablesSection({ onNotes }: { onNotes: (notes: string[]) => void }) {
@@ -14,6 +17,21 @@ export default function CablesSection({ onNotes }: { onNotes: (notes: string[]) 
   const catalogue = useQuery(cableCatalogueQuery());
   const [fromCatalogue, setFromCatalogue] = useState('');
   const typeIds: string[] = (watch('cableTypes') ?? []).map((t: { id: string }) => t.id);
+
+  // Direct keeps the figures last derived, as a starting point; construction starts from an illustrative cable.
+  function chooseEntry(i: number, construction: boolean) {
+    const { construction: _c, entry: _e, ...rest } = getValues(`cableTypes.${i}`);
+    if (construction) {
+      for (const key of DERIVED_FIGURES) delete rest[key];
+      setValue(`cableTypes.${i}`, { ...rest, entry: 'construction', construction: STARTING_CONSTRUCTION }, { shouldDirty: true, shouldValidate: true });
+    } else {
+      const parsed = cableConstructionSchema.safeParse(_c);
+      const derived = parsed.success ? deriveCableParameters(parsed.data) : undefined;
+      const figures = derived ? Object.fromEntries(DERIVED_FIGURES.map((k) => [k, derived[k]])) : {};
+      setValue(`cableTypes.${i}`, { ...rest, ...figures, entry: 'direct' }, { shouldDirty: true, shouldValidate: true });
+    }
+    onNotes([construction ? `Cable type ${rest.id} now starts from an illustrative construction: enter the cable's own.` : `Cable type ${rest.id} now takes the maker's figures, starting from those last derived.`]);
+  }
 
   function addCircuit() {
     const taken = new Set(getValues('circuits').map((c: { id: string }) => c.id));
@@ -33,13 +51,20 @@ export default function CablesSection({ onNotes }: { onNotes: (notes: string[]) 
     <section className={box} aria-label="Cable types and circuits">
       <h3 className="mb-2 font-semibold">Cable types</h3>
       {cableTypes.fields.map((f, i) => {
-        const construction = getValues(`cableTypes.${i}.entry`) === 'construction';
+        const construction = watch(`cableTypes.${i}.entry`) === 'construction';
         return (
           <div key={f.id} className="mb-2 flex flex-wrap items-end gap-2 border-b border-rule pb-2">
             <Text name={`cableTypes.${i}.id`} label={`Id of cable type ${i + 1}`} width="w-20" />
             <Text name={`cableTypes.${i}.name`} label={`Name of cable type ${i + 1}`} width="w-56" />
+            <label className="block text-xs">
+              <span className="text-ink-soft">Entered as</span>
+              <select aria-label={`Entry of cable type ${i + 1}`} value={construction ? 'construction' : 'direct'} onChange={(e) => chooseEntry(i, e.target.value === 'construction')} className="mt-0.5 block rounded border border-rule px-1 py-0.5">
+                <option value="direct">the maker's figures</option>
+                <option value="construction">its construction</option>
+              </select>
+            </label>
             {construction ? (
-              <p className="text-xs text-ink-soft">Entered as a construction: its engine figures are derived (edit it in the catalogue or as JSON).</p>
+              <CableConstructionFields i={i} />
             ) : (
               <>
                 <Num name={`cableTypes.${i}.conductorResistanceOhmPerKm`} label="Conductor R (Ω/km)" />

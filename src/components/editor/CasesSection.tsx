@@ -13,7 +13,7 @@ export default function CasesSection() {
   const cases = useFieldArray({ control, name: 'cases' });
   const circuitIds: string[] = (watch('circuits') ?? []).map((c: { id: string }) => c.id);
   const circuitOptions = circuitIds.map((id): [string, string] => [id, id]);
-  const joints = jointOptions(watch('sections') ?? []);
+  const joints = jointOptions(watch('sections') ?? [], watch('jointNames'));
 
   function changeKind(i: number, kind: string) {
     setValue(`cases.${i}`, caseOfKind(getValues(`cases.${i}`), kind, circuitIds), { shouldDirty: true });

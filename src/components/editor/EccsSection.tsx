@@ -1,6 +1,7 @@
 import { useFieldArray, useFormContext } from 'react-hook-form';
 import { Button } from '../ui/parts';
-import { Check, Choice, ErrorBeside, Num, Text, box } from './fields';
+import { Choice, ErrorBeside, Num, Text, box } from './fields';
+import EccCrossings from './EccCrossings';
 import { nextId } from './LayoutsSection';
 
 /** Earth continuity conductors: the run along the route, and the cross-over that transposes them. */
@@ -22,7 +23,7 @@ export default function EccsSection() {
             <Num name={`eccs.${i}.gmrMm`} label={`GMR of ECC ${id} (mm)`} />
             <Choice name={`eccs.${i}.fromSectionId`} label={`ECC ${id} from section`} options={sectionOptions} />
             <Choice name={`eccs.${i}.toSectionId`} label={`ECC ${id} to section`} options={sectionOptions} />
-            <Check name={`eccs.${i}.transposedAtMidpoint`} label={`ECC ${id} crossed over at the middle of its run (transposition point)`} />
+            <EccCrossings i={i} />
             <Num name={`eccs.${i}.crossSectionMm2`} label={`Cross-section of ECC ${id} (mm², for the fault check)`} />
             <Choice name={`eccs.${i}.material`} label={`Material of ECC ${id}`} options={[['copper', 'copper'], ['aluminium', 'aluminium']]} />
             <Button tone="danger" onClick={() => {

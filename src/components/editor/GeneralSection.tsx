@@ -1,9 +1,10 @@
 import { useFormContext } from 'react-hook-form';
 import { Choice, Num, Text, box } from './fields';
+import BondingLeadFields from './BondingLeadFields';
 
 /** Study-wide data: frequency, soil, electrodes, bonding leads, touch-voltage ground, adiabatic temperatures. */
 export default function GeneralSection() {
-  const { watch, setValue } = useFormContext();
+  const { watch, setValue, getValues, trigger } = useFormContext();
   const leads = watch('bondingLeads');
   const surface = watch('touch.surfaceLayer');
   return (
@@ -22,10 +23,13 @@ export default function GeneralSection() {
       </div>
       <h4 className="mt-3 text-sm font-semibold">Bonding leads</h4>
       <div className="flex flex-wrap items-end gap-3">
-        <Num name="bondingLeadMilliohm.r" label="Lead resistance (mΩ)" />
-        <Num name="bondingLeadMilliohm.x" label="Lead reactance (mΩ)" />
+        <BondingLeadFields />
         <label className="flex items-center gap-1 text-xs">
-          <input type="checkbox" aria-label="Check the leads' fault current" checked={!!leads} onChange={(e) => setValue('bondingLeads', e.target.checked ? { crossSectionMm2: 240, material: 'copper' } : undefined, { shouldDirty: true })} /> Check the leads' fault current
+          <input type="checkbox" aria-label="Check the leads' fault current" checked={!!leads} onChange={(e) => {
+            setValue('bondingLeads', e.target.checked ? { crossSectionMm2: 240, material: 'copper' } : undefined, { shouldDirty: true });
+            // A lead given by length may take its resistance from this conductor: its error is re-judged.
+            if (getValues('bondingLeadLength')) void trigger('bondingLeadLength');
+          }} /> Check the leads' fault current
         </label>
         {leads && <>
           <Num name="bondingLeads.crossSectionMm2" label="Lead cross-section (mm²)" />

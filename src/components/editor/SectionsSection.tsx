@@ -7,6 +7,7 @@ import { Button } from '../ui/parts';
 import { ErrorBeside, Num, Text, box } from './fields';
 import PastePreview from './PastePreview';
 import { sectionsToCsv } from './sections-csv';
+import { jointName } from '../../lib/calc/bonding/joint-names';
 
 type Section = { id: string; lengthM: number; layoutId: string; phaseRotation?: 0 | 1 | 2 };
 
@@ -18,6 +19,7 @@ export default function SectionsSection({ studyCode, onNotes }: { studyCode: str
   const { watch, getValues, setValue, reset, register } = useFormContext();
   const sections: Section[] = watch('sections') ?? [];
   const layoutIds: string[] = (watch('layouts') ?? []).map((l: { id: string }) => l.id);
+  const jointNames: Array<{ jointIndex: number; name: string }> | undefined = watch('jointNames');
   const [pasteText, setPasteText] = useState('');
   const [preview, setPreview] = useState<SectionsPreview | null>(null);
   const fileInput = useRef<HTMLInputElement>(null);
@@ -25,7 +27,7 @@ export default function SectionsSection({ studyCode, onNotes }: { studyCode: str
 
   function apply(edit: SectionEdit) {
     reset(edit.study, { keepDefaultValues: true });
-    onNotes(edit.notes.length ? edit.notes : ['Every SVL, earthing override, internal fault and ECC still points at the same joint or section.']);
+    onNotes(edit.notes.length ? edit.notes : ['Every SVL, earthing override, internal fault, joint bay name and ECC still points at the same joint or section.']);
   }
   function setEndChainage(i: number, text: string) {
     const r = readNumber(text);
@@ -66,7 +68,7 @@ export default function SectionsSection({ studyCode, onNotes }: { studyCode: str
         <tbody>
           {sections.map((s, i) => (
             <tr key={`${i}-${s.id}`} className="align-top">
-              <td className="pr-2 text-xs text-ink-soft">J{i} ({format(chainages[i])} m)</td>
+              <td className="pr-2 text-xs text-ink-soft">{jointName({ jointNames }, i) === undefined ? `J${i}` : `${jointName({ jointNames }, i)} (J${i})`} ({format(chainages[i])} m)</td>
               <td><Text name={`sections.${i}.id`} label={`Id of section ${i + 1}`} hideLabel width="w-16" /></td>
               <td><Num name={`sections.${i}.lengthM`} label={`Length of section ${s.id}`} hideLabel /></td>
               <td>

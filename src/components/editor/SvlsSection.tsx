@@ -7,7 +7,7 @@ import { jointOptions } from './joints';
 export default function SvlsSection() {
   const { control, watch } = useFormContext();
   const svls = useFieldArray({ control, name: 'svls' });
-  const joints = jointOptions(watch('sections') ?? []);
+  const joints = jointOptions(watch('sections') ?? [], watch('jointNames'));
   return (
     <section className={box} aria-label="Sheath voltage limiters">
       <h3 className="mb-2 font-semibold">Sheath voltage limiters (SVLs)</h3>

@@ -14,12 +14,14 @@ const FIELD: Record<string, string> = {
   r: 'Lead resistance', x: 'Lead reactance', bodyWeightKg: 'Body weight', resistivityOhmM: 'Surface layer resistivity', thicknessM: 'Surface layer thickness', initialC: 'Initial temperature', finalC: 'Final temperature',
   parallelLengthM: 'Length of parallelism', earthing: 'Earthing', earthStartOhm: 'Earth resistance at the start', earthEndOhm: 'Earth resistance at the end', screeningFactor: 'Screening factor',
   coatingDefectDiameterMm: 'Coating defect diameter', type: 'Type', sourceId: 'Source',
+  transposedAtJoints: 'Transposition joints', transposedAtMidpoint: 'Transposition at the middle', resistanceMilliohmPerM: 'Lead resistance per metre', reactanceMilliohmPerM: 'Lead reactance per metre',
 };
 const LIST: Record<string, string> = {
   cableTypes: 'cable type', circuits: 'circuit', layouts: 'layout', sections: 'section', bonding: 'bonding group', eccs: 'ECC', svls: 'SVL', cases: 'case',
   overrides: 'earthing override', currents: 'current', positions: 'position', sources: 'source', stationGpr: 'station rise',
+  jointNames: 'joint bay', transposedAtJoints: 'transposition joint',
 };
-const PART: Record<string, string> = { earthing: 'earthing', earthFault: 'earth fault', phasePhaseEarthFault: 'phase-phase-earth fault', internalFault: 'internal fault', bondingLeadMilliohm: 'bonding leads', bondingLeads: 'bonding leads', touch: 'touch voltage', surfaceLayer: 'surface layer', adiabatic: 'adiabatic check', object: 'the metalwork', fromStart: 'infeed from the start', fromEnd: 'infeed from the end' };
+const PART: Record<string, string> = { earthing: 'earthing', earthFault: 'earth fault', phasePhaseEarthFault: 'phase-phase-earth fault', internalFault: 'internal fault', bondingLeadMilliohm: 'bonding leads', bondingLeads: 'bonding leads', bondingLeadLength: 'bonding leads by length', touch: 'touch voltage', surfaceLayer: 'surface layer', adiabatic: 'adiabatic check', object: 'the metalwork', fromStart: 'infeed from the start', fromEnd: 'infeed from the end' };
 
 /** Names the field at `path` using the values (ids) the person typed: "Length of section S2". */
 export function fieldInWords(path: string, values: unknown): string {

@@ -56,7 +56,7 @@ function BondingResultsView({ results, detail, measurements }: { results: Bondin
       {c.svls.length > 0 && (
         <section>
           <h3 className="mb-2 font-semibold">Sheath voltage limiters</h3>
-          <SvlTable result={c} />
+          <SvlTable result={c} jointNames={(detail.revision.inputs as { jointNames?: Array<{ jointIndex: number; name: string }> } | null)?.jointNames} />
         </section>
       )}
       <section>

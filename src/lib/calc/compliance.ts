@@ -5,6 +5,7 @@ import type { ExposureResults } from './exposure/solve-exposure';
 import { oversheathVoltages, standingVoltages } from './bonding/worst-values';
 import { tolerableVoltages } from './body-tolerance';
 import { adiabaticCurrentA } from './adiabatic';
+import { jointInWords } from './bonding/joint-names';
 
 export type ChecklistStatus = 'pass' | 'fail' | 'no-limit';
 
@@ -64,7 +65,7 @@ export function evaluateBondingCompliance(study: BondingStudy, results: BondingR
     for (const svl of study.svls.map((_, i) => i)) {
       const stressed = c.svls.filter((s) => s.svlIndex === svl);
       if (!stressed.length) continue;
-      const worst = maxOf(stressed.map((s) => ({ value: s.voltageV, where: `SVL at joint ${s.jointIndex}, cable ${s.cable}, ${s.terminals}` })));
+      const worst = maxOf(stressed.map((s) => ({ value: s.voltageV, where: `SVL at ${jointInWords(study, s.jointIndex)}, cable ${s.cable}, ${s.terminals}` })));
       const spec = study.svls[svl];
       const rated = isFault
         ? item('svl-tov', `SVL ${svl + 1}: voltage during the fault against its temporary-overvoltage capability`, c.caseId, worst, spec.tovRatingV, 'V', "SVL maker's rating entered in the study")
@@ -73,7 +74,7 @@ export function evaluateBondingCompliance(study: BondingStudy, results: BondingR
       const conducting = stressed.filter((s) => s.conducting && s.currentA > 0);
       if (isFault && c.durationS !== undefined && conducting.length) {
         // A conducting SVL modelled as a resistance: voltage and current in phase, E = V·I·t.
-        const energy = maxOf(conducting.map((s) => ({ value: (s.voltageV * s.currentA * c.durationS!) / 1000, where: `SVL at joint ${s.jointIndex}, cable ${s.cable}: ${s.voltageV.toFixed(0)} V × ${s.currentA.toFixed(0)} A × ${c.durationS} s` })));
+        const energy = maxOf(conducting.map((s) => ({ value: (s.voltageV * s.currentA * c.durationS!) / 1000, where: `SVL at ${jointInWords(study, s.jointIndex)}, cable ${s.cable}: ${s.voltageV.toFixed(0)} V × ${s.currentA.toFixed(0)} A × ${c.durationS} s` })));
         const e = item('svl-energy', `SVL ${svl + 1}: energy absorbed while conducting (estimate V·I·t)`, c.caseId, energy, spec.energyRatingKJ ?? null, 'kJ', spec.energyRatingKJ ? "SVL maker's energy rating entered in the study" : 'no energy rating entered for this SVL');
         items.push({ ...e, id: `${e.id}:${svl}` });
       }
@@ -118,7 +119,7 @@ function thermalItems(study: BondingStudy, c: CaseResult, durationS: number): Ch
   if (study.bondingLeads && c.bondingLeadCurrents.length) {
     const leads = study.bondingLeads;
     const limit = adiabaticCurrentA(leads.material, leads.crossSectionMm2, durationS, initialC, finalC);
-    out.push(item('bonding-lead-thermal', 'Cross-bonding leads: fault current against their adiabatic rating', c.caseId, maxOf(c.bondingLeadCurrents.map((l) => ({ value: l.maxA, where: `leads at joint ${l.jointIndex}, ${leads.crossSectionMm2} mm² ${leads.material}` }))), limit, 'A', `IEC 60949:1988 eq. (1), adiabatic, ${durationS} s, ${initialC}→${finalC} °C`));
+    out.push(item('bonding-lead-thermal', 'Cross-bonding leads: fault current against their adiabatic rating', c.caseId, maxOf(c.bondingLeadCurrents.map((l) => ({ value: l.maxA, where: `leads at ${jointInWords(study, l.jointIndex)}, ${leads.crossSectionMm2} mm² ${leads.material}` }))), limit, 'A', `IEC 60949:1988 eq. (1), adiabatic, ${durationS} s, ${initialC}→${finalC} °C`));
   }
   return out;
 }

@@ -1,5 +1,6 @@
 import { create } from 'jsondiffpatch';
 import { formatNumber } from '../format';
+import { jointInWords } from '../calc/bonding/joint-names';
 
 // The inputs of two revisions compared field by field and told in words ("section S2 length
 // 500 m → 520 m"). jsondiffpatch finds the structural difference, matching list entries by
@@ -33,6 +34,7 @@ const ENTITY: Record<string, string> = {
   overrides: 'earthing',
   sources: 'source',
   positions: 'position',
+  jointNames: 'joint name',
 };
 
 /** Field names in words, with their unit where the name carries one. */
@@ -70,6 +72,10 @@ const FIELD: Record<string, [string, string]> = {
   fromSectionId: ['first section', ''],
   toSectionId: ['last section', ''],
   transposedAtMidpoint: ['transposed mid-way', ''],
+  transposedAtJoints: ['transposition points', ''],
+  bondingLeadLength: ['bonding lead by length', ''],
+  resistanceMilliohmPerM: ['resistance per metre', 'mΩ/m'],
+  reactanceMilliohmPerM: ['reactance per metre', 'mΩ/m'],
   crossSectionMm2: ['cross-section', 'mm²'],
   material: ['material', ''],
   connection: ['connection', ''],
@@ -115,12 +121,16 @@ export function valueText(value: unknown, unit = ''): string {
     .join(', ');
 }
 
+/** Joint names to tell joints by ("joint bay JB-3 (joint 3)"): the later revision's, else the earlier's. */
+type Names = { jointNames?: Array<{ jointIndex: number; name: string }> };
+
 /** How an entry of a list is named: "section S2", "SVL at joint 4", "bonding group 2". */
-function entryName(listKey: string, item: unknown, index: number): string {
+function entryName(listKey: string, item: unknown, index: number, names: Names): string {
   const o = (item ?? {}) as Record<string, unknown>;
   const what = ENTITY[listKey] ?? listKey;
-  if (listKey === 'svls') return `SVL at joint ${o.jointIndex}`;
-  if (listKey === 'overrides') return `earthing at joint ${o.jointIndex}`;
+  if (listKey === 'svls') return `SVL at ${jointInWords(names, Number(o.jointIndex))}`;
+  if (listKey === 'overrides') return `earthing at ${jointInWords(names, Number(o.jointIndex))}`;
+  if (listKey === 'jointNames') return `joint ${o.jointIndex}`;
   if (listKey === 'currents') return o.circuitId ? `circuit ${o.circuitId}` : `source ${o.sourceId}`;
   if (listKey === 'circuits' && typeof o.circuitId === 'string') return `circuit ${o.circuitId}`;
   if (typeof o.id === 'string') return `${what} ${o.id}`;
@@ -136,37 +146,48 @@ export function describeInputChanges(before: unknown, after: unknown): string[] 
   const delta = differ.diff(before, after) as Delta | undefined;
   if (!delta) return [];
   const out: string[] = [];
-  walk(delta, before, after, [], out);
+  const names: Names = { jointNames: (after as Names | undefined)?.jointNames ?? (before as Names | undefined)?.jointNames };
+  walk(delta, before, after, [], out, names);
   return out;
 }
 
-function walk(delta: Delta, before: unknown, after: unknown, subject: string[], out: string[]): void {
+/** An ECC's transposition joints in words, "none" when it has none. */
+const crossingsText = (joints: unknown, names: Names) =>
+  Array.isArray(joints) && joints.length ? [...joints].sort((p, q) => p - q).map((j) => jointInWords(names, j)).join(', ') : 'none';
+
+function walk(delta: Delta, before: unknown, after: unknown, subject: string[], out: string[], names: Names): void {
   if (Array.isArray(delta)) {
     leaf(delta, subject, '', out);
     return;
   }
   if ((delta as Record<string, unknown>)._t === 'a') {
-    list(delta as Record<string, unknown>, before as unknown[], after as unknown[], subject, out);
+    list(delta as Record<string, unknown>, before as unknown[], after as unknown[], subject, out, '', names);
     return;
   }
   for (const [key, d] of Object.entries(delta)) {
     const b = (before as Record<string, unknown> | undefined)?.[key];
     const a = (after as Record<string, unknown> | undefined)?.[key];
     const [name, unit] = fieldName(key);
-    // A list of plain values (the sections of a bonding group) reads best whole.
-    if (isPlainList(b) && isPlainList(a)) {
+    if (key === 'transposedAtJoints') {
+      out.push(sentence([...subject, name], `${crossingsText(b, names)} → ${crossingsText(a, names)}`));
+    } else if (isPlainList(b) && isPlainList(a)) {
+      // A list of plain values (the sections of a bonding group) reads best whole.
       out.push(sentence([...subject, name], `${valueText(b)} → ${valueText(a)}`));
+    } else if (Array.isArray(d) && (Array.isArray(a) || Array.isArray(b))) {
+      // A whole list given or taken away (joint names, a first override) reads entry by entry.
+      const whole = differ.diff(b ?? [], a ?? []) as Record<string, unknown> | undefined;
+      if (whole) list(whole, (b ?? []) as unknown[], (a ?? []) as unknown[], subject, out, key, names);
     } else if (Array.isArray(d)) {
       leaf(d, [...subject, name], unit, out);
     } else if ((d as Record<string, unknown>)._t === 'a') {
-      list(d as Record<string, unknown>, (b ?? []) as unknown[], (a ?? []) as unknown[], subject.length ? subject : [], out, key);
+      list(d as Record<string, unknown>, (b ?? []) as unknown[], (a ?? []) as unknown[], subject.length ? subject : [], out, key, names);
     } else {
-      walk(d as Delta, b, a, [...subject, name], out);
+      walk(d as Delta, b, a, [...subject, name], out, names);
     }
   }
 }
 
-function list(delta: Record<string, unknown>, before: unknown[], after: unknown[], subject: string[], out: string[], listKey = ''): void {
+function list(delta: Record<string, unknown>, before: unknown[], after: unknown[], subject: string[], out: string[], listKey: string, names: Names): void {
   const removed: string[] = [];
   const added: string[] = [];
   const changed: Array<() => void> = [];
@@ -175,17 +196,19 @@ function list(delta: Record<string, unknown>, before: unknown[], after: unknown[
     if (k.startsWith('_')) {
       const i = Number(k.slice(1));
       const [old, , type] = d as unknown[];
-      if (type === 0) removed.push(sentence([...subject, entryName(listKey, old, i)], 'removed'));
+      const o = old as Record<string, unknown>;
+      if (type === 0) removed.push(sentence([...subject, entryName(listKey, old, i, names)], listKey === 'jointNames' ? `no longer named ${o?.name}` : 'removed'));
       continue;
     }
     const i = Number(k);
     if (Array.isArray(d) && d.length === 1) {
       const summary = valueText(d[0]);
-      added.push(sentence([...subject, entryName(listKey, d[0], i)], `added${summary ? ` (${summary})` : ''}`));
+      const named = listKey === 'jointNames' ? `named ${(d[0] as Record<string, unknown>).name}` : `added${summary ? ` (${summary})` : ''}`;
+      added.push(sentence([...subject, entryName(listKey, d[0], i, names)], named));
     } else {
       const afterItem = after[i];
       const beforeItem = before.find((x) => sameEntry(x, afterItem)) ?? before[i];
-      changed.push(() => walk(d as Delta, beforeItem, afterItem, [...subject, entryName(listKey, afterItem, i)], out));
+      changed.push(() => walk(d as Delta, beforeItem, afterItem, [...subject, entryName(listKey, afterItem, i, names)], out, names));
     }
   }
   changed.forEach((f) => f());

@@ -65,7 +65,7 @@ export async function renderRecord(data: RecordData): Promise<Buffer> {
     heading(text.limitsHeading),
     ...limitBlocks(data),
     heading(text.resultsHeading),
-    ...(data.results ? resultBlocks(data.results) : [body('The revision has not been calculated.', { italic: true })]),
+    ...(data.results ? resultBlocks(data.results, data.inputs.kind === 'bonding' ? data.inputs : {}) : [body('The revision has not been calculated.', { italic: true })]),
     ...plotBlocks(data),
     ...explorationBlocks(data.explorations),
     heading(text.checklistHeading),

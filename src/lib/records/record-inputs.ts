@@ -2,6 +2,9 @@ import type { Paragraph, Table } from 'docx';
 import type { BondingStudy } from '../schemas/bonding-study.schema';
 import type { ExposureStudy } from '../schemas/exposure-study.schema';
 import { textTable } from './record-tables';
+import { bondingLeadImpedance } from '../calc/bonding/bonding-lead';
+import { jointInWords, jointShortLabel } from '../calc/bonding/joint-names';
+import { formatNumber } from '../format';
 import { subheading } from './record-paragraphs';
 
 /** The study's inputs as tables, in the order an engineer checks them. */
@@ -12,7 +15,7 @@ export function inputBlocks(inputs: BondingStudy | ExposureStudy): Array<Paragra
 function bondingInputs(s: BondingStudy): Array<Paragraph | Table> {
   return [
     subheading('General'),
-    textTable(['frequency', 'soil resistivity', 'bonding lead'], [[`${s.frequencyHz} Hz`, `${s.soilResistivityOhmM} Ω·m`, `${s.bondingLeadMilliohm.r} + j${s.bondingLeadMilliohm.x} mΩ`]]),
+    textTable(['frequency', 'soil resistivity', 'bonding lead'], [[`${s.frequencyHz} Hz`, `${s.soilResistivityOhmM} Ω·m`, bondingLeadText(s)]]),
     subheading('Cable data'),
     textTable(
       ['cable type', 'conductor R (Ω/km)', 'conductor GMR (mm)', 'sheath mean dia. (mm)', 'sheath R (Ω/km)', 'oversheath (mm)', 'overall dia. (mm)', 'oversheath withstand (kV)'],
@@ -27,16 +30,17 @@ function bondingInputs(s: BondingStudy): Array<Paragraph | Table> {
       ),
     ),
     subheading('Route sections'),
-    textTable(['section', 'length (m)', 'layout', 'cable transposition'], s.sections.map((x) => [x.id, x.lengthM, x.layoutId, x.phaseRotation ? `shift ${x.phaseRotation}` : 'none'])),
+    textTable(['section', 'length (m)', 'layout', 'cable transposition', 'joint at its end'], s.sections.map((x, i) => [x.id, x.lengthM, x.layoutId, x.phaseRotation ? `shift ${x.phaseRotation}` : 'none', jointShortLabel(s, i + 1)])),
+    ...(s.jointNames?.length ? [textTable(['joint', 'joint bay name'], [...s.jointNames].sort((a, b) => a.jointIndex - b.jointIndex).map((n) => [n.jointIndex, n.name]))] : []),
     subheading('Bonding'),
     textTable(['group', 'arrangement', 'sections'], s.bonding.map((g, i) => [i + 1, g.kind === 'single-point' ? `single-point, earthed at the ${g.earthedAt}` : g.kind, g.sectionIds.join(', ')])),
     subheading('Earthing, ECCs and SVLs'),
     textTable(
       ['route start (Ω)', 'route end (Ω)', 'link boxes (Ω)', 'other joints'],
-      [[s.earthing.routeStartOhm, s.earthing.routeEndOhm, s.earthing.linkBoxOhm, s.earthing.overrides.map((o) => `joint ${o.jointIndex}: ${o.resistanceOhm} Ω`).join('; ') || '—']],
+      [[s.earthing.routeStartOhm, s.earthing.routeEndOhm, s.earthing.linkBoxOhm, s.earthing.overrides.map((o) => `${jointInWords(s, o.jointIndex)}: ${o.noElectrode ? 'no electrode' : `${o.resistanceOhm} Ω`}`).join('; ') || '—']],
     ),
-    ...(s.eccs.length ? [textTable(['ECC', 'R (Ω/km)', 'GMR (mm)', 'runs', 'transposed mid-way'], s.eccs.map((e) => [`${e.id}: ${e.name}`, e.resistanceOhmPerKm, e.gmrMm, `${e.fromSectionId} to ${e.toSectionId}`, e.transposedAtMidpoint ? 'yes' : 'no']))] : []),
-    ...(s.svls.length ? [textTable(['SVL at joint', 'connection', 'continuous rating (V)', 'TOV capability (V)'], s.svls.map((v) => [v.jointIndex, v.connection, v.continuousRatingV, v.tovRatingV]))] : []),
+    ...(s.eccs.length ? [textTable(['ECC', 'R (Ω/km)', 'GMR (mm)', 'runs', 'transposition points'], s.eccs.map((e) => [`${e.id}: ${e.name}`, e.resistanceOhmPerKm, e.gmrMm, `${e.fromSectionId} to ${e.toSectionId}`, eccCrossingsText(s, e)]))] : []),
+    ...(s.svls.length ? [textTable(['SVL at joint', 'connection', 'continuous rating (V)', 'TOV capability (V)'], s.svls.map((v) => [jointInWords(s, v.jointIndex), v.connection, v.continuousRatingV, v.tovRatingV]))] : []),
     subheading('Cases'),
     textTable(
       ['case', 'kind', 'currents', 'duration (s)'],
@@ -48,6 +52,25 @@ function bondingInputs(s: BondingStudy): Array<Paragraph | Table> {
       ]),
     ),
   ];
+}
+
+/** The lead impedance as entered, and when given by length, the total it comes to. */
+function bondingLeadText(s: BondingStudy): string {
+  const lead = bondingLeadImpedance(s);
+  const total = `${formatNumber(lead.ohm.re * 1000)} + j${formatNumber(lead.ohm.im * 1000)} mΩ`;
+  const byLength = s.bondingLeadLength;
+  if (!byLength) return total;
+  const r = byLength.resistanceMilliohmPerM === undefined
+    ? `resistance of ${s.bondingLeads!.crossSectionMm2} mm² ${s.bondingLeads!.material} (ρ20/A at ${s.adiabatic.initialC} °C, IEC 60287-1-1 Table 1 and eq. 2)`
+    : `${byLength.resistanceMilliohmPerM} mΩ/m`;
+  return `${byLength.lengthM} m per lead, ${r}, reactance ${byLength.reactanceMilliohmPerM ?? 0} mΩ/m: ${total}`;
+}
+
+/** Where an ECC crosses to its mirror position, in words. */
+export function eccCrossingsText(s: Pick<BondingStudy, 'jointNames'>, e: Pick<BondingStudy['eccs'][number], 'transposedAtMidpoint' | 'transposedAtJoints'>): string {
+  if (e.transposedAtMidpoint) return 'at the middle of its run';
+  if (e.transposedAtJoints?.length) return `at ${[...e.transposedAtJoints].sort((a, b) => a - b).map((j) => jointInWords(s, j)).join(', ')}`;
+  return 'none';
 }
 
 function exposureInputs(s: ExposureStudy): Array<Paragraph | Table> {

@@ -4,9 +4,10 @@ import { formatDifferencePct, formatQuantity } from '../format';
 import { quantityLabel } from '../compare/labels';
 import { textTable } from './record-tables';
 import { body, subheading } from './record-paragraphs';
+import { jointInWords } from '../calc/bonding/joint-names';
 
-/** Results per case and the worst values, as tables. */
-export function resultBlocks(results: StudyResults): Array<Paragraph | Table> {
+/** Results per case and the worst values, as tables; joints are told by their bay names where the inputs give them. */
+export function resultBlocks(results: StudyResults, names: { jointNames?: Array<{ jointIndex: number; name: string }> } = {}): Array<Paragraph | Table> {
   if (results.kind === 'exposure') {
     return [
       textTable(
@@ -61,7 +62,7 @@ export function resultBlocks(results: StudyResults): Array<Paragraph | Table> {
       blocks.push(
         textTable(
           ['SVL', 'cable', 'connected between', 'voltage across its terminals (V)', 'current', 'continuous rating (V)', 'TOV capability (V)'],
-          c.svls.map((s) => [`SVL ${s.svlIndex + 1} at joint ${s.jointIndex}`, s.cable, s.terminals ?? (s.connection === 'across-joint' ? 'across the joint' : 'sheath to remote earth'), formatQuantity(s.voltageV), s.conducting ? formatQuantity(s.currentA, 'A') : 'blocking', s.continuousRatingV, s.tovRatingV]),
+          c.svls.map((s) => [`SVL ${s.svlIndex + 1} at ${jointInWords(names, s.jointIndex)}`, s.cable, s.terminals ?? (s.connection === 'across-joint' ? 'across the joint' : 'sheath to remote earth'), formatQuantity(s.voltageV), s.conducting ? formatQuantity(s.currentA, 'A') : 'blocking', s.continuousRatingV, s.tovRatingV]),
         ),
       );
     }

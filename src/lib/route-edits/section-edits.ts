@@ -1,7 +1,8 @@
 import type { BondingStudyInput } from '../schemas/bonding-study.schema';
 
 // Splitting, moving and removing route sections renumber the joints (joint k follows the k-th
-// section). Every reference by joint number (SVLs, earthing overrides, internal faults) and by
+// section). Every reference by joint number (SVLs, earthing overrides, internal faults, joint
+// bay names, ECC transposition points) and by
 // section id (ECC runs, bonding groups) is carried to the same physical joint or section; where
 // none exists any more, the reference is changed and the change is said in words.
 
@@ -26,7 +27,20 @@ function remapJoints(study: Study, map: JointMap): { study: Study; notes: string
   const cases = study.cases.map((c) =>
     c.internalFault?.jointIndex === undefined ? c : { ...c, internalFault: { ...c.internalFault, jointIndex: at(c.internalFault.jointIndex, `Internal fault of case ${c.id}`) } },
   );
-  return { study: { ...study, svls, earthing: { ...study.earthing, overrides }, cases }, notes };
+  const eccs = study.eccs?.map((e) => (e.transposedAtJoints ? { ...e, transposedAtJoints: e.transposedAtJoints.map((j) => at(j, `Transposition point of ECC ${e.id}`)) } : e));
+  const out: Study = { ...study, svls, earthing: { ...study.earthing, overrides }, cases };
+  if (eccs) out.eccs = eccs;
+  if (study.jointNames) {
+    // A name goes with its joint bay; where two joints become one, the first name stays.
+    const named = new Map<number, string>();
+    for (const n of study.jointNames) {
+      const j = at(n.jointIndex, `Joint bay ${n.name}`);
+      if (named.has(j)) notes.push(`Joint bay ${n.name} is now the same joint as ${named.get(j)}: the name ${n.name} is dropped.`);
+      else named.set(j, n.name);
+    }
+    out.jointNames = [...named].map(([jointIndex, name]) => ({ jointIndex, name }));
+  }
+  return { study: out, notes };
 }
 
 /** Splits section `index` into two halves (ids `<id>a`, `<id>b`); the new joint between them gets no references. */
@@ -38,7 +52,7 @@ export function splitSection(study: Study, index: number, newIds?: [string, stri
   // Joints after the split section move one on; the ones before it stay.
   const shifted = remapJoints(study, (j) => ({ joint: j > index ? j + 1 : j }));
   const notes = [...shifted.notes];
-  const eccs = (study.eccs ?? []).map((e) => ({ ...e, fromSectionId: e.fromSectionId === s.id ? idA : e.fromSectionId, toSectionId: e.toSectionId === s.id ? idB : e.toSectionId }));
+  const eccs = (shifted.study.eccs ?? []).map((e) => ({ ...e, fromSectionId: e.fromSectionId === s.id ? idA : e.fromSectionId, toSectionId: e.toSectionId === s.id ? idB : e.toSectionId }));
   const bonding = study.bonding.map((g, gi) => {
     if (!g.sectionIds.includes(s.id)) return g;
     if (g.kind === 'cross-bonded') notes.push(`Bonding group ${gi + 1} now has ${g.sectionIds.length + 1} minor sections: check that the cross-bonding still suits it.`);
@@ -77,7 +91,7 @@ export function removeSection(study: Study, index: number): SectionEdit {
   const notes = [...removed.notes];
   const next = sections[index]?.id;
   const previous = sections[index - 1]?.id;
-  const eccs = (study.eccs ?? []).flatMap((e) => {
+  const eccs = (removed.study.eccs ?? []).flatMap((e) => {
     let { fromSectionId, toSectionId } = e;
     if (fromSectionId === s.id && toSectionId === s.id) {
       notes.push(`ECC ${e.id} ran along ${s.id} only and is removed with it.`);

@@ -169,8 +169,13 @@ export const eccSchema = z.strictObject({
   /** First and last section (ids) the ECC runs along; it is earthed at both ends of its run. */
   fromSectionId: id,
   toSectionId: id,
-  /** Cross the ECC to the mirror position at the middle of its run. */
+  /** Cross the ECC to the mirror position at the middle of its run (by chainage, inside a section if need be). */
   transposedAtMidpoint: z.boolean().default(false),
+  /**
+   * Or: the joints (route joint numbers, strictly inside the ECC's run) where it crosses to the
+   * mirror position; each further crossing swaps it back. Absent in studies before it existed.
+   */
+  transposedAtJoints: z.array(z.number({ error: 'A transposition joint must be a joint number.' }).int('A transposition joint must be a whole joint number.').nonnegative('Joint numbers start at 0.')).max(L.sections, atMost(L.sections, 'transposition joints')).optional(),
   /** For the adiabatic check of its fault current; no check without it. */
   crossSectionMm2: positive('ECC cross-section').max(5000).optional(),
   material: z.enum(['copper', 'aluminium']).default('copper'),
@@ -349,6 +354,12 @@ export const earthingSchema = z.strictObject({
   overrides: z.array(earthingOverrideSchema).max(L.overrides, atMost(L.overrides, 'earthing overrides')).default([]),
 });
 
+/** A joint bay's own name ("JB-3"); joints without one are called J0, J1, … by their number. */
+export const jointNameSchema = z.strictObject({
+  jointIndex: z.number({ error: 'The joint must be a joint number.' }).int('The joint must be a whole joint number.').nonnegative('Joint numbers start at 0.'),
+  name: z.string().trim().min(1, 'Give the joint bay a name, or remove the entry.').max(40, 'A joint bay name has at most 40 characters.'),
+});
+
 export const bondingStudyBaseSchema = z.strictObject({
   kind: z.literal('bonding'),
   title: z.string().min(1, 'Give the study a title.'),
@@ -359,10 +370,29 @@ export const bondingStudyBaseSchema = z.strictObject({
   eccs: z.array(eccSchema).max(L.eccs, atMost(L.eccs, 'ECCs')).default([]),
   layouts: z.array(layoutSchema).min(1, 'Add a layout.').max(L.layouts, atMost(L.layouts, 'layouts')),
   sections: z.array(sectionSchema).min(1, 'Add at least one route section.').max(L.sections, atMost(L.sections, 'route sections')),
+  /** Names of joint bays by joint number; optional (absent in studies before it existed). */
+  jointNames: z.array(jointNameSchema).max(L.sections + 1, atMost(L.sections + 1, 'joint names')).optional(),
   bonding: z.array(bondingGroupSchema).min(1, 'Say how the sheaths are bonded.').max(L.sections, atMost(L.sections, 'bonding groups')),
   earthing: earthingSchema,
-  /** Impedance of each cross-bonding lead, mΩ (0: ideal). */
-  bondingLeadMilliohm: z.strictObject({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).default({ r: 0, x: 0 }),
+  /**
+   * Impedance of each cross-bonding lead, mΩ (0: ideal), as one total; or `bondingLeadLength`
+   * instead. Without either it is {r: 0, x: 0}, filled in after the checks (as before the
+   * alternative existed), so stored studies parse to the same object.
+   */
+  bondingLeadMilliohm: z.strictObject({ r: nonNegative('Lead resistance'), x: nonNegative('Lead reactance') }).optional(),
+  /**
+   * Each cross-bonding lead by its length: per-metre figures, or the resistance derived from
+   * the conductor in `bondingLeads` (src/lib/calc/bonding/bonding-lead.ts).
+   */
+  bondingLeadLength: z
+    .strictObject({
+      lengthM: positive('Bonding lead length').max(1000, 'A bonding lead longer than 1 km is not a link-box lead: check the units (metres).'),
+      /** Omitted: derived from the cross-section and material in `bondingLeads`. */
+      resistanceMilliohmPerM: nonNegative('Lead resistance per metre').max(1000).optional(),
+      /** Omitted: 0 (a concentric lead's reactance is small; common practice). */
+      reactanceMilliohmPerM: nonNegative('Lead reactance per metre').max(1000).optional(),
+    })
+    .optional(),
   svls: z.array(svlSchema).max(L.svls, atMost(L.svls, 'SVL entries')).default([]),
   /** Cross-bonding and earthing leads, for their adiabatic check; no check without them. */
   bondingLeads: z.strictObject({ crossSectionMm2: positive('Bonding lead cross-section').max(5000), material: z.enum(['copper', 'aluminium']).default('copper') }).optional(),
@@ -384,11 +414,14 @@ export const bondingStudyBaseSchema = z.strictObject({
 // Cross-field checks run once every field is valid on its own, so they can trust the numbers.
 const onlyWhenFieldsValid = { when: (payload: { issues: unknown[] }) => payload.issues.length === 0 };
 
-export const bondingStudySchema = bondingStudyBaseSchema.check(
-  z.superRefine((study: z.output<typeof bondingStudyBaseSchema>, ctx) => {
-    for (const issue of checkBondingStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
-  }, onlyWhenFieldsValid),
-);
+export const bondingStudySchema = bondingStudyBaseSchema
+  .check(
+    z.superRefine((study: z.output<typeof bondingStudyBaseSchema>, ctx) => {
+      for (const issue of checkBondingStudy(study)) ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+    }, onlyWhenFieldsValid),
+  )
+  // The default of the total lead impedance, given only when the leads are not given by length.
+  .transform((study) => (study.bondingLeadMilliohm || study.bondingLeadLength ? study : { ...study, bondingLeadMilliohm: { r: 0, x: 0 } }));
 
 export type BondingStudyInput = z.input<typeof bondingStudySchema>;
 export type BondingStudy = z.output<typeof bondingStudySchema>;

@@ -39,7 +39,22 @@ const noElectrodeBox = referenceStudy({
   ],
 });
 
+// Two cross-bonded major sections with an ECC crossed at three joints and leads given by length.
+const eccCrossedLeadsByLength = referenceStudy({
+  sections: sections(480, 510, 530, 500, 490, 520),
+  bonding: [{ kind: 'cross-bonded', sectionIds: ['S1', 'S2', 'S3'] }, { kind: 'cross-bonded', sectionIds: ['S4', 'S5', 'S6'] }],
+  eccs: [{ id: 'E1', name: 'ecc', resistanceOhmPerKm: 0.0754, gmrMm: 8.6, fromSectionId: 'S1', toSectionId: 'S6', transposedAtJoints: [2, 3, 5] }],
+  layouts: [{ id: 'L', circuits: [{ circuitId: 'C1', formation: 'trefoil', spacingM: 0.11, depthM: 1.2 }], eccs: [{ eccId: 'E1', xM: 0.4, depthM: 1.0 }] }],
+  bondingLeads: { crossSectionMm2: 185, material: 'copper' },
+  bondingLeadLength: { lengthM: 12, reactanceMilliohmPerM: 0.2 },
+  cases: [
+    { id: 'N', name: 'n', kind: 'normal', currents: [{ circuitId: 'C1', currentA: 1000 }] },
+    { id: 'FE', name: 'fe', kind: 'earth-fault', durationS: 1, earthFault: { circuitId: 'C1', phase: 'c', currentA: 18000, beyond: 'end' } },
+  ],
+});
+
 const studies: Array<[string, BondingStudy]> = [
+  ['ECC crossed at joints 2, 3 and 5; leads by length', eccCrossedLeadsByLength],
   ['fernhollow-cross-bonded', fixture('fernhollow-cross-bonded')],
   ['fernhollow-cross-bonded, SVLs conducting in faults', withConducting(fixture('fernhollow-cross-bonded'))],
   ['kestrel-single-point-ecc, SVLs conducting in faults', withConducting(fixture('kestrel-single-point-ecc'))],

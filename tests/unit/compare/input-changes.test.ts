@@ -30,6 +30,28 @@ describe('revision comparison in words', () => {
     ]);
   });
 
+  it('names joint bays, ECC transposition points and bonding leads by length', () => {
+    const a = fixture();
+    a.eccs = [{ id: 'E1', name: 'ECC', resistanceOhmPerKm: 0.06, gmrMm: 8, fromSectionId: 'M1a', toSectionId: 'M1c', transposedAtMidpoint: false }];
+    const b = structuredClone(a);
+    b.jointNames = [{ jointIndex: 2, name: 'Mill Lane' }];
+    b.eccs[0].transposedAtJoints = [2, 1];
+    b.bondingLeadLength = { lengthM: 12, resistanceMilliohmPerM: 0.08 };
+    b.svls.find((v: { jointIndex: number }) => v.jointIndex === 2).continuousRatingV = 4000;
+    const before = a.svls.find((v: { jointIndex: number }) => v.jointIndex === 2).continuousRatingV;
+    expect(describeInputChanges(a, b)).toEqual([
+      `SVL at joint bay Mill Lane (joint 2) continuous rating ${before} V → 4000 V`,
+      'ECC E1 transposition points none → joint 1, joint bay Mill Lane (joint 2)',
+      'joint 2 named Mill Lane',
+      'bonding lead by length set to length 12 m, resistance per metre 0.08 mΩ/m',
+    ]);
+    const c = structuredClone(b);
+    c.jointNames[0].name = 'Mill Lane bay';
+    c.eccs[0].transposedAtJoints = [1];
+    expect(describeInputChanges(b, c)).toEqual(['ECC E1 transposition points joint 1, joint bay Mill Lane bay (joint 2) → joint 1', 'joint 2 name Mill Lane → Mill Lane bay']);
+    expect(describeInputChanges(c, a)).toContain('joint 2 no longer named Mill Lane bay');
+  });
+
   it('finds nothing between equal inputs', () => {
     expect(describeInputChanges(fixture(), fixture())).toEqual([]);
   });

@@ -65,3 +65,44 @@ describe('section edits keep references on the same joints', () => {
     expect(notes).toEqual(['Bonding group 2 now has 4 minor sections: check that the cross-bonding still suits it.']);
   });
 });
+
+describe('section edits keep joint bay names and ECC transposition points on the same joints', () => {
+  function named(): BondingStudyInput {
+    const s = study();
+    s.jointNames = [{ jointIndex: 2, name: 'Mill Lane' }, { jointIndex: 3, name: 'Bay 3' }, { jointIndex: 4, name: 'Ford' }];
+    s.eccs![0] = { ...s.eccs![0], transposedAtJoints: [3, 4] };
+    return s;
+  }
+  const namesAt = (s: BondingStudyInput) => Object.fromEntries((s.jointNames ?? []).map((n) => [n.name, neighbours(s, n.jointIndex)]));
+  const crossingsAt = (s: BondingStudyInput) => s.eccs![0].transposedAtJoints!.map((j) => neighbours(s, j));
+
+  it('split, move and remove carry names and crossings with their joints', () => {
+    const before = named();
+    const places = namesAt(before);
+    const crossings = crossingsAt(before);
+    const split = splitSection(before, 1).study;
+    expect(namesAt(split)).toEqual({ 'Mill Lane': 'S2b|S3', 'Bay 3': places['Bay 3'], Ford: places.Ford });
+    expect(crossingsAt(split)).toEqual(crossings);
+    // Swapping S3 and S4 keeps joint numbers; the joint between them is said to have new neighbours.
+    const moved = moveSectionDown(before, 2);
+    expect(moved.study.jointNames).toEqual(before.jointNames);
+    expect(moved.study.eccs![0].transposedAtJoints).toEqual([3, 4]);
+    expect(moved.notes).toContain('Joint bay Bay 3 at joint 3: was between S3 and S4, is now between S4 and S3.');
+    const removed = removeSection(before, 0).study;
+    expect(namesAt(removed)).toEqual(places);
+    expect(crossingsAt(removed)).toEqual(crossings);
+  });
+
+  it('when two named joints become one, the first name stays and the edit says so', () => {
+    const { study: after, notes } = removeSection(named(), 2);
+    expect(after.jointNames).toEqual([{ jointIndex: 2, name: 'Mill Lane' }, { jointIndex: 3, name: 'Ford' }]);
+    expect(notes).toContain('Joint bay Bay 3 is now the same joint as Mill Lane: the name Bay 3 is dropped.');
+    expect(after.eccs![0].transposedAtJoints).toEqual([2, 3]);
+  });
+
+  it('leaves a study without names or crossings without those keys', () => {
+    const { study: after } = splitSection(study(), 2);
+    expect('jointNames' in after).toBe(false);
+    expect('transposedAtJoints' in after.eccs![0]).toBe(false);
+  });
+});

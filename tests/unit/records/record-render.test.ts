@@ -7,10 +7,11 @@ import { checklistRows } from '../../../src/lib/studies/checklist-rows';
 import { renderRecord } from '../../../src/lib/records/record-document';
 import type { RecordData } from '../../../src/lib/records/record-data';
 import { xmlSafe } from '../../../src/lib/records/xml-safe-text';
-import { formatQuantity } from '../../../src/lib/format';
+import { formatNumber, formatQuantity } from '../../../src/lib/format';
 import { crossBondedRoute } from '../../../bench/reference-routes';
 import { hasCell, readDocx } from '../../helpers/docx-text';
 import { committedValidationFile } from '../../../src/lib/records/record-validation';
+import { bondingStudySchema } from '../../../src/lib/schemas/bonding-study.schema';
 
 const limits = limitSetSchema.parse(JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')));
 
@@ -97,6 +98,26 @@ describe('record rendering', () => {
     // The to-local-earth column and the hand-check figures.
     expect(hasCell(doc.bodyText, 'highest sheath V to local earth')).toBe(true);
     expect(hasCell(doc.bodyText, 'EMF (V/km per kA)')).toBe(true);
+  });
+
+  it('prints joint bay names, ECC transposition points and bonding leads given by length', async () => {
+    const base = crossBondedRoute({ circuits: 1, majorSections: 2, withEcc: true });
+    const study = bondingStudySchema.parse({
+      ...base,
+      bondingLeadMilliohm: undefined,
+      jointNames: [{ jointIndex: 3, name: 'Mill Lane' }],
+      eccs: [{ ...base.eccs[0], transposedAtJoints: [2, 3] }],
+      bondingLeads: { crossSectionMm2: 185, material: 'copper' },
+      bondingLeadLength: { lengthM: 12 },
+      svls: [{ jointIndex: 1, connection: 'to-earth', continuousRatingV: 3000, tovRatingV: 6000 }, { jointIndex: 4, connection: 'to-earth', continuousRatingV: 3000, tovRatingV: 6000 }],
+    });
+    const doc = readDocx(await renderRecord(recordData(study, true)));
+    expect(hasCell(doc.bodyText, 'at joint 2, joint bay Mill Lane (joint 3)')).toBe(true);
+    expect(hasCell(doc.bodyText, 'Mill Lane')).toBe(true); // the joint at the end of S3, and the names table
+    expect(doc.bodyText).toContain('joint bay Mill Lane (joint 3) (');
+    // 12 m of 185 mm² copper at 50 °C: ρ20/A·[1 + α20·30]·L (IEC 60287-1-1 Table 1, eq. 2).
+    const rMilliohm = (1.7241e-8 / 185e-6) * (1 + 3.93e-3 * 30) * 12 * 1000;
+    expect(doc.bodyText).toContain(`12 m per lead, resistance of 185 mm² copper (ρ20/A at 50 °C, IEC 60287-1-1 Table 1 and eq. 2), reactance 0 mΩ/m: ${formatNumber(rMilliohm)} + j0 mΩ`);
   });
 
   it('prints manual questions without empty columns and each answer once', async () => {

@@ -1,5 +1,6 @@
 import type { CaseResult } from '../../../lib/calc/bonding/results';
 import { formatQuantity } from '../../../lib/format';
+import { jointInWords } from '../../../lib/calc/bonding/joint-names';
 
 // Voltages at link boxes and route ends, each column naming its reference. Results from
 // engine 1 carry no local-earth figures: those cells show a dash, and their voltages were
@@ -39,7 +40,8 @@ export default function PointVoltagesTable({ result }: { result: CaseResult }) {
   );
 }
 
-export function SvlTable({ result }: { result: CaseResult }) {
+/** SVL voltages of a case; joints are told by their bay names where the inputs give them. */
+export function SvlTable({ result, jointNames }: { result: CaseResult; jointNames?: Array<{ jointIndex: number; name: string }> }) {
   if (!result.svls.length) return null;
   return (
     <table className="w-full text-sm" data-testid="svl-voltages">
@@ -56,7 +58,7 @@ export function SvlTable({ result }: { result: CaseResult }) {
       <tbody>
         {result.svls.map((s, i) => (
           <tr key={`${s.svlIndex}-${s.cable}-${i}`} className="border-t border-rule">
-            <td className="px-2 py-1">SVL {s.svlIndex + 1}, joint {s.jointIndex}</td>
+            <td className="px-2 py-1">SVL {s.svlIndex + 1}, {jointInWords({ jointNames }, s.jointIndex)}</td>
             <td className="px-2 py-1">{s.cable}</td>
             <td className="px-2 py-1">{s.terminals ?? (s.connection === 'across-joint' ? 'across the joint' : 'sheath to remote earth (engine 1)')}</td>
             <td className="px-2 py-1 font-mono">{formatQuantity(s.voltageV, 'V')}</td>

@@ -1,6 +1,7 @@
 import type { BondingStudy } from '../../schemas/bonding-study.schema';
 import { type Complex, div } from '../complex';
 import { EARTH, NetworkBuilder } from '../network';
+import { bondingLeadImpedance } from './bonding-lead';
 import { crossSectionKey, segmentCoupling } from './impedances';
 import { type RouteJoint, type RouteTopology, buildRouteTopology, jointAtChainage } from './route-topology';
 import type { CrossSectionCoupling } from '../network';
@@ -81,7 +82,7 @@ export function buildBondingNetwork(study: BondingStudy): BondingNetworkModel {
     return { left, right, ecc };
   });
 
-  const leadZ: Complex = { re: study.bondingLeadMilliohm.r / 1000, im: study.bondingLeadMilliohm.x / 1000 };
+  const leadZ: Complex = bondingLeadImpedance(study).ohm;
   const leadIdeal = leadZ.re === 0 && leadZ.im === 0;
 
   const toEarthSvlJoints = new Set(study.svls.filter((v) => v.connection === 'to-earth').map((v) => v.jointIndex));

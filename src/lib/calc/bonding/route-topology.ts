@@ -82,17 +82,21 @@ export function buildRouteTopology(study: BondingStudy): RouteTopology {
     }
   }
 
-  const eccMidpoints = new Map<string, number>();
+  // Chainages where each ECC crosses to the mirror position: the middle of its run (which may
+  // fall inside a section), or the joints named; past an odd number of them it is mirrored.
+  const jointChainage = (j: number) => (j === 0 ? 0 : sectionStart[j - 1] + study.sections[j - 1].lengthM);
+  const eccCrossings = new Map<string, number[]>();
   for (const ecc of study.eccs) {
-    if (!ecc.transposedAtMidpoint) continue;
     const a = sectionIndex.get(ecc.fromSectionId)!;
     const b = sectionIndex.get(ecc.toSectionId)!;
-    eccMidpoints.set(ecc.id, (sectionStart[a] + sectionStart[b] + study.sections[b].lengthM) / 2);
+    if (ecc.transposedAtMidpoint) eccCrossings.set(ecc.id, [(sectionStart[a] + sectionStart[b] + study.sections[b].lengthM) / 2]);
+    else if (ecc.transposedAtJoints?.length) eccCrossings.set(ecc.id, ecc.transposedAtJoints.map(jointChainage).sort((p, q) => p - q));
   }
+  const mirroredAt = (id: string, x: number) => (eccCrossings.get(id) ?? []).filter((c) => c < x).length % 2 === 1;
 
   // Chainages of all joints: user joints plus split points that fall inside a section.
   const points = new Map<number, { user?: number; midEarth: boolean }>();
-  for (let j = 0; j < userJoints; j++) points.set(j === 0 ? 0 : sectionStart[j - 1] + study.sections[j - 1].lengthM, { user: j, midEarth: false });
+  for (let j = 0; j < userJoints; j++) points.set(jointChainage(j), { user: j, midEarth: false });
   const addPoint = (x: number, midEarth: boolean) => {
     for (const [c, p] of points) {
       if (Math.abs(c - x) < SAME_POINT_M) {
@@ -103,7 +107,7 @@ export function buildRouteTopology(study: BondingStudy): RouteTopology {
     points.set(x, { midEarth });
   };
   midEarths.forEach((x) => addPoint(x, true));
-  eccMidpoints.forEach((x) => addPoint(x, false));
+  eccCrossings.forEach((xs) => xs.forEach((x) => addPoint(x, false)));
   // An internal fault at a chainage needs a node there; a straight split changes nothing else.
   for (const c of study.cases) {
     if (c.kind === 'internal-fault' && c.internalFault?.chainageM !== undefined) addPoint(c.internalFault.chainageM, false);
@@ -128,7 +132,7 @@ export function buildRouteTopology(study: BondingStudy): RouteTopology {
     const eccIds = study.eccs
       .filter((e) => si >= sectionIndex.get(e.fromSectionId)! && si <= sectionIndex.get(e.toSectionId)!)
       .map((e) => e.id);
-    const mirroredEccIds = new Set(eccIds.filter((e) => eccMidpoints.has(e) && mid > eccMidpoints.get(e)!));
+    const mirroredEccIds = new Set(eccIds.filter((e) => mirroredAt(e, mid)));
     segments.push({
       index: k,
       sectionIndex: si,

@@ -9,6 +9,7 @@ import { bondingCrossChecks } from './cross-checks';
 import { type BondingNetworkModel, SVL_OFF_TAG, SVL_TAG, buildBondingNetwork } from './network-model';
 import type { BondingResults, CaseHandCheck, CaseResult, LocalEarth, PointKind, PointResult, ProfileSeries, SvlResult } from './results';
 import { worstValues } from './worst-values';
+import { jointInWords } from './joint-names';
 import { crossSectionImpedance, crossSectionKey } from './impedances';
 
 const PROFILE_STEPS = 6;
@@ -157,7 +158,8 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
               : [{ cable: cable.label, voltageV: abs(sub(solution.voltage(nodes.left[k]), solution.voltage(nodes.right[k]))) }],
           )
         : [];
-    const at = joint.userJointIndex === undefined ? `${joint.chainageM.toFixed(0)} m` : `joint ${joint.userJointIndex} (${joint.chainageM.toFixed(0)} m)`;
+    // A named joint bay reads "joint bay JB-3 (joint 3) (960 m)"; unnamed joints read as before.
+    const at = joint.userJointIndex === undefined ? `${joint.chainageM.toFixed(0)} m` : `${jointInWords(study, joint.userJointIndex)} (${joint.chainageM.toFixed(0)} m)`;
     const localEarth: LocalEarth | null =
       earthV === undefined
         ? null

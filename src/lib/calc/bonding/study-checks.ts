@@ -54,7 +54,10 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
     if (from === undefined) report(['eccs', i, 'fromSectionId'], `No section "${e.fromSectionId}".`);
     if (to === undefined) report(['eccs', i, 'toSectionId'], `No section "${e.toSectionId}".`);
     if (from !== undefined && to !== undefined && from > to) report(['eccs', i, 'toSectionId'], 'The ECC must end at or after the section where it starts.');
+    if (from !== undefined && to !== undefined && from <= to) checkEccCrossings(e, i, from, to + 1, report);
   });
+  checkBondingLeadEntry(study, report);
+  checkJointNames(study, report);
   if (study.circuits.length * 3 + study.eccs.length > MAX_CONDUCTORS) {
     report(['eccs'], `At most ${MAX_CONDUCTORS} sheaths and ECCs in one cross-section; this study has ${study.circuits.length * 3 + study.eccs.length} (three sheaths per circuit). Split the study.`);
   }
@@ -119,6 +122,46 @@ export function checkBondingStudy(study: BondingStudy): InputIssue[] {
 }
 
 type Report = (path: (string | number)[], message: string) => void;
+
+/** Transposition joints lie strictly inside the ECC's run (joints `first`…`last`), once each, and not besides "at the middle". */
+function checkEccCrossings(e: BondingStudy['eccs'][number], i: number, first: number, last: number, report: Report) {
+  const joints = e.transposedAtJoints ?? [];
+  if (!joints.length) return;
+  if (e.transposedAtMidpoint) {
+    report(['eccs', i, 'transposedAtJoints'], `ECC "${e.id}": give its crossings either at the middle of its run or at joints, not both.`);
+    return;
+  }
+  const seen = new Set<number>();
+  joints.forEach((j, k) => {
+    if (j <= first || j >= last) report(['eccs', i, 'transposedAtJoints', k], `Joint ${j} is not inside the run of ECC "${e.id}" (joints ${first + 1} to ${last - 1}); its ends are earthed, not crossed.`);
+    else if (seen.has(j)) report(['eccs', i, 'transposedAtJoints', k], `Joint ${j} is named twice: crossing twice at one joint is no crossing.`);
+    seen.add(j);
+  });
+}
+
+/** The lead impedance is given one way: a total, or by length (with a resistance per metre, or a conductor to derive it from). */
+function checkBondingLeadEntry(study: BondingStudy, report: Report) {
+  const byLength = study.bondingLeadLength;
+  if (!byLength) return;
+  if (study.bondingLeadMilliohm) report(['bondingLeadMilliohm'], 'Give the bonding lead impedance either as a total or by length, not both: remove one.');
+  if (byLength.resistanceMilliohmPerM === undefined && !study.bondingLeads) {
+    report(['bondingLeadLength', 'resistanceMilliohmPerM'], "Give the lead resistance per metre, or the leads' cross-section and material (fault-current check) to derive it from.");
+  }
+}
+
+/** Joint names name joints that exist, each joint once, each name once. */
+function checkJointNames(study: BondingStudy, report: Report) {
+  const joints = new Set<number>();
+  const names = new Set<string>();
+  (study.jointNames ?? []).forEach((n, i) => {
+    if (n.jointIndex > study.sections.length) report(['jointNames', i, 'jointIndex'], `Joint ${n.jointIndex} does not exist: joints run from 0 to ${study.sections.length}.`);
+    else if (joints.has(n.jointIndex)) report(['jointNames', i, 'jointIndex'], `Joint ${n.jointIndex} has two names; keep one.`);
+    joints.add(n.jointIndex);
+    const key = n.name.trim().toLowerCase();
+    if (names.has(key)) report(['jointNames', i, 'name'], `The name "${n.name}" is given to two joints; make each one unique.`);
+    names.add(key);
+  });
+}
 
 function checkLayouts(study: BondingStudy, report: Report, circuits: Map<string, unknown>, cableTypes: Map<string, BondingStudy['cableTypes'][number]>) {
   study.layouts.forEach((layout, li) => {
