@@ -36,6 +36,9 @@ describe('design exploration in Chromium', () => {
     await expect(page.getByTestId('sweep-count').textContent()).resolves.toMatch(/^\d+ of 200 points$/);
     await page.getByTestId('sweep-chart').waitFor({ timeout: 60_000 });
     await page.getByTestId('sweep-chart').locator('.recharts-line').first().waitFor();
+    // The progress came pushed by the server (its event stream was opened), not only by polling.
+    const streamed = await page.evaluate(() => performance.getEntriesByType('resource').some((e) => /\/explorations\/[0-9a-f-]+\/events$/.test(e.name)));
+    expect(streamed).toBe(true);
     // The limit line of the standing voltage (demo owner limit, 65 V) is drawn on the chart.
     await page.getByTestId('sweep-chart').getByText(/^limit 65 V/).waitFor();
     await expect(page.getByTestId('sweep-verdict').textContent()).resolves.toMatch(/first fails at|passes at every grid point/);
