@@ -51,6 +51,9 @@ describe('design exploration in Chromium', () => {
   });
 
   it('sweeps two inputs: one curve per value of the second, the grid table with failing points, saved with both axes', async () => {
+    // With the event stream refused, the page follows the run by polling its row instead.
+    let refusedStreams = 0;
+    await page.route('**/explorations/*/events', (route) => (refusedStreams++, route.abort()));
     await page.goto(`${appUrl}/revisions/${revisionId}`);
     await hydrated(page);
     await page.getByRole('tab', { name: 'Explore' }).click();
@@ -82,6 +85,7 @@ describe('design exploration in Chromium', () => {
     await expect(grid.locator('tbody tr').first().locator('td').count()).resolves.toBe(10);
     // The verdict names both inputs at the first failing point.
     await expect(page.getByTestId('sweep-verdict').textContent()).resolves.toMatch(/first fails at .+ \(Largest normal-load current.*\) with .+ \(Soil resistivity, Ω·m\)|passes at every grid point/);
+    expect(refusedStreams).toBeGreaterThan(0);
     await screenshot(page, 'explore-sweep-two-inputs');
     await page.getByRole('button', { name: 'Save the sweep with the revision' }).click();
     await page.getByTestId('sweep-saved').waitFor();
