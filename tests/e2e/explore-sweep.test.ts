@@ -4,7 +4,8 @@ import { appUrl, browserAs, hydrated, screenshot } from '../helpers/browser-sess
 import { DEMO, demoSessions, readyDraft } from '../helpers/workflow-api';
 
 // Issue 14: the designer runs a sensitivity sweep in the Explore tab, sees the progress bar
-// with the count done and the chart with the limit line, and saves it with the revision.
+// with the count done and the chart with the limit line, and saves it with the revision; then
+// the same with two inputs, drawn as a family of curves with the grid tabulated.
 
 describe('design exploration in Chromium', () => {
   let page: Page;
@@ -35,6 +36,9 @@ describe('design exploration in Chromium', () => {
     await expect(page.getByTestId('sweep-count').textContent()).resolves.toMatch(/^\d+ of 200 points$/);
     await page.getByTestId('sweep-chart').waitFor({ timeout: 60_000 });
     await page.getByTestId('sweep-chart').locator('.recharts-line').first().waitFor();
+    // The progress came pushed by the server (its event stream was opened), not only by polling.
+    const streamed = await page.evaluate(() => performance.getEntriesByType('resource').some((e) => /\/explorations\/[0-9a-f-]+\/events$/.test(e.name)));
+    expect(streamed).toBe(true);
     // The limit line of the standing voltage (demo owner limit, 65 V) is drawn on the chart.
     await page.getByTestId('sweep-chart').getByText(/^limit 65 V/).waitFor();
     await expect(page.getByTestId('sweep-verdict').textContent()).resolves.toMatch(/first fails at|passes at every grid point/);
@@ -43,6 +47,51 @@ describe('design exploration in Chromium', () => {
     await page.getByTestId('sweep-saved').waitFor();
     const list = await page.evaluate(async (id) => (await fetch(`/api/revisions/${id}/explorations`)).json(), revisionId);
     expect(list.explorations.filter((e: { kind: string; savedAt: string | null }) => e.kind === 'sweep' && e.savedAt)).toHaveLength(1);
+    expect(errors).toEqual([]);
+  });
+
+  it('sweeps two inputs: one curve per value of the second, the grid table with failing points, saved with both axes', async () => {
+    // With the event stream refused, the page follows the run by polling its row instead.
+    let refusedStreams = 0;
+    await page.route('**/explorations/*/events', (route) => (refusedStreams++, route.abort()));
+    await page.goto(`${appUrl}/revisions/${revisionId}`);
+    await hydrated(page);
+    await page.getByRole('tab', { name: 'Explore' }).click();
+    const form = page.getByRole('form', { name: 'Sweep settings' });
+    await form.getByLabel('Input', { exact: true }).selectOption({ label: 'Largest load current (A)' });
+    await form.getByLabel('From', { exact: true }).fill('200');
+    await form.getByLabel('To', { exact: true }).fill('4000');
+    await form.getByLabel('Points', { exact: true }).fill('10');
+    await form.getByLabel('Vary a second input (one curve per value)').check();
+    // The first input is not offered again as the second.
+    await expect(form.getByLabel('Second input', { exact: true }).locator('option', { hasText: 'Largest load current (A)' }).count()).resolves.toBe(0);
+    await form.getByLabel('Second input', { exact: true }).selectOption({ label: 'Soil resistivity (Ω·m)' });
+    await form.getByLabel('Second from', { exact: true }).fill('20');
+    await form.getByLabel('Second to', { exact: true }).fill('2000');
+    await form.getByLabel('Second points', { exact: true }).fill('3');
+    await form.getByText('30 grid points.').waitFor();
+    await form.getByRole('button', { name: 'Run the sweep' }).click();
+    const progress = page.getByTestId('sweep-progress');
+    await progress.waitFor();
+    expect(await progress.getAttribute('max')).toBe('30');
+    const chart = page.getByTestId('sweep-chart');
+    await chart.waitFor({ timeout: 60_000 });
+    // Three curves, named in the legend by the soil resistivity they were calculated at.
+    await expect.poll(() => chart.locator('.recharts-line').count()).toBe(3);
+    for (const v of ['20', '1010', '2000']) await chart.getByText(`Soil resistivity, Ω·m = ${v}`, { exact: true }).waitFor();
+    await chart.getByText(/^limit 65 V/).waitFor();
+    const grid = page.getByTestId('sweep-grid');
+    await expect(grid.locator('tbody tr').count()).resolves.toBe(3);
+    await expect(grid.locator('tbody tr').first().locator('td').count()).resolves.toBe(10);
+    // The verdict names both inputs at the first failing point.
+    await expect(page.getByTestId('sweep-verdict').textContent()).resolves.toMatch(/first fails at .+ \(Largest normal-load current.*\) with .+ \(Soil resistivity, Ω·m\)|passes at every grid point/);
+    expect(refusedStreams).toBeGreaterThan(0);
+    await screenshot(page, 'explore-sweep-two-inputs');
+    await page.getByRole('button', { name: 'Save the sweep with the revision' }).click();
+    await page.getByTestId('sweep-saved').waitFor();
+    const list = await page.evaluate(async (id) => (await fetch(`/api/revisions/${id}/explorations`)).json(), revisionId);
+    const twoInput = list.explorations.filter((e: { kind: string; savedAt: string | null; params: { axes: unknown[] } }) => e.kind === 'sweep' && e.savedAt && e.params.axes.length === 2);
+    expect(twoInput).toHaveLength(1);
     expect(errors).toEqual([]);
   });
 });

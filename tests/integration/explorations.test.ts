@@ -43,6 +43,28 @@ describe('explorations', () => {
     expect(done.result.rows[0].isCurrent).toBe(true);
   });
 
+  it('pushes progress as server-sent events, uncompressed, ending when the run ends', async () => {
+    const axes = [{ input: { kind: 'load-current' }, fromValue: 200, toValue: 4000, points: 200 }];
+    const row = await json(await start({ kind: 'sweep', axes }), 202);
+    const res = await sessions.designer.fetch(`${base()}/${row.id}/events`, { headers: { 'accept-encoding': 'gzip, br' } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/^text\/event-stream/);
+    // Compressed, the events would wait in the compressor's buffer.
+    expect(res.headers.get('content-encoding')).toBeNull();
+    const text = await res.text(); // the server closes the stream after `end`
+    const events = [...text.matchAll(/event: (\w+)\ndata: (.*)\n\n/g)].map((m) => ({ event: m[1], data: JSON.parse(m[2]) }));
+    const progress = events.filter((e) => e.event === 'progress').map((e) => e.data);
+    expect(progress.length).toBeGreaterThan(0);
+    // Counts only grow, and the last is the whole grid; then one `end` with the final status.
+    progress.forEach((p, i) => i && expect(p.done).toBeGreaterThanOrEqual(progress[i - 1].done));
+    expect(progress.at(-1)).toEqual({ status: 'done', done: 200, total: 200 });
+    expect(events.at(-1)).toEqual({ event: 'end', data: { status: 'done' } });
+    const done = await json(await sessions.designer.fetch(`${base()}/${row.id}`), 200);
+    expect(done.status).toBe('done');
+    // Another revision's or an unknown id: refused before any stream.
+    await json(await sessions.designer.fetch(`${base()}/00000000-0000-4000-8000-000000000000/events`), 404);
+  });
+
   it('refuses a grid over the limit, naming it, with nothing saved', async () => {
     const before = await json(await sessions.designer.fetch(base()), 200);
     const axes = [

@@ -7,6 +7,7 @@ import { api } from '../../lib/queries/api-client';
 import { formatNumber } from '../../lib/format';
 import { Button, Caution, ErrorNote } from '../ui/parts';
 import { useExploration, type ExplorationRow } from './use-exploration';
+import { sweepCurves, sweepGrid } from '../../lib/explore/sweep-series';
 
 // Design exploration tab: bonding options side by side, a sensitivity sweep with its progress
 // and chart, and a tornado of the inputs. Charts drawn with recharts as RouteProfileChart does.
@@ -103,19 +104,27 @@ function AppraisalPanel({ revisionId, canRun }: { revisionId: string; canRun: bo
   );
 }
 
+/** Curve colours, light to dark: the order of the second input's values reads off the shade. */
+const CURVE_COLOURS = ['#e0a66a', '#c9824a', '#a4522a', '#7f3a1d', '#5b7fa6', '#1f5f8b', '#16406a', '#16202e'];
+
 function SweepChart({ result }: { result: SweepResult }) {
   const criteria = [...new Set(result.points.flatMap((p) => (p.quantities ?? []).map((q) => q.criterion)))];
   const [criterion, setCriterion] = useState<string>(criteria.includes('standing-voltage-normal') ? 'standing-voltage-normal' : criteria[0]);
   const axis = result.axes[0];
-  const rows = result.points.filter((p) => p.values.slice(1).every((v, k) => v === result.points[0].values[k + 1]));
-  const data = rows.map((p) => ({ x: p.values[0], value: p.quantities?.find((q) => q.criterion === criterion)?.value ?? null }));
-  const limit = rows.flatMap((p) => p.quantities ?? []).find((q) => q.criterion === criterion)?.limit ?? null;
+  const second = result.axes[1];
+  const { curves, secondCount, limit, unit } = sweepCurves(result, criterion);
+  // One row per value of the first input, one column per curve.
+  const data = (curves[0]?.points ?? []).map((p, i) => Object.fromEntries([['x', p.x], ...curves.map((c, k) => [`c${k}`, c.points[i]?.y ?? null])]));
   const fail = result.firstFailures.find((f) => f.criterion === criterion);
-  const unit = rows.flatMap((p) => p.quantities ?? []).find((q) => q.criterion === criterion)?.unit ?? '';
+  const failText = fail && fail.values.map((v, k) => `${formatNumber(v)} (${result.axes[k].label})`).join(' with ');
   return (
     <div className="space-y-2">
       <label className="text-sm">Checked quantity <select value={criterion} onChange={(e) => setCriterion(e.target.value)} className="ml-1 border border-rule">{criteria.map((c) => <option key={c}>{c}</option>)}</select></label>
-      {result.axes.length > 1 && <p className="text-xs text-ink-soft">Plotted along the first input at the first value of the second; the table in the record lists every point.</p>}
+      {second && (
+        <p className="text-xs text-ink-soft" data-testid="sweep-curves-note">
+          One curve per value of {second.label}{curves.length < secondCount ? ` (${curves.length} of its ${secondCount} values, evenly spaced; the grid below and the record list every point)` : ''}.
+        </p>
+      )}
       <div className="h-72 w-full" data-testid="sweep-chart">
         <ResponsiveContainer>
           <LineChart data={data} margin={{ top: 10, right: 20, bottom: 20, left: 10 }}>
@@ -123,36 +132,115 @@ function SweepChart({ result }: { result: SweepResult }) {
             <XAxis dataKey="x" type="number" domain={['dataMin', 'dataMax']} label={{ value: axis.label, position: 'insideBottom', offset: -10 }} />
             <YAxis unit={unit ? ` ${unit}` : undefined} domain={[0, (m: number) => niceCeiling(Math.max(m, (limit ?? 0)) * 1.1)]} />
             <Tooltip />
+            {second && <Legend verticalAlign="top" />}
             {limit !== null && <ReferenceLine y={limit} stroke="#b3261e" strokeDasharray="8 6" label={{ value: `limit ${limit} ${unit}`, fill: '#b3261e', position: 'insideTopLeft' }} />}
             {fail && <ReferenceLine x={fail.values[0]} stroke="#b3261e" label={{ value: `first fails at ${formatNumber(fail.values[0])}`, fill: '#b3261e', position: 'insideTopRight' }} />}
             {axis.baseValue !== null && <ReferenceLine x={axis.baseValue} stroke="#4a5668" strokeDasharray="2 4" label={{ value: 'current design', position: 'insideBottomLeft' }} />}
-            <Line dataKey="value" name={criterion} stroke="#a4522a" strokeWidth={2} dot={{ r: 2 }} isAnimationActive={false} connectNulls={false} />
+            {curves.map((c, k) => (
+              <Line
+                key={k}
+                dataKey={`c${k}`}
+                name={c.secondValue === null ? criterion : `${second!.label} = ${formatNumber(c.secondValue)}`}
+                stroke={curves.length === 1 ? '#a4522a' : CURVE_COLOURS[Math.round((k * (CURVE_COLOURS.length - 1)) / Math.max(1, curves.length - 1))]}
+                strokeWidth={2}
+                dot={{ r: 2 }}
+                isAnimationActive={false}
+                connectNulls={false}
+              />
+            ))}
           </LineChart>
         </ResponsiveContainer>
       </div>
       {!fail && <p className="text-sm" data-testid="sweep-verdict">This check passes at every grid point.</p>}
-      {fail && <p className="text-sm text-fail" data-testid="sweep-verdict">This check first fails at {formatNumber(fail.values[0])} ({axis.label}).</p>}
+      {fail && <p className="text-sm text-fail" data-testid="sweep-verdict">This check first fails at {failText}.</p>}
+      {second && <SweepGridTable result={result} criterion={criterion} unit={unit} />}
     </div>
   );
 }
 
+/** Largest grid tabulated on the page; the record lists every point of any sweep. */
+const GRID_TABLE_MAX = { first: 25, second: 40 };
+
+/** The two-input grid as a table: the checked quantity at every point, failing cells marked. */
+function SweepGridTable({ result, criterion, unit }: { result: SweepResult; criterion: string; unit: string }) {
+  const [first, second] = result.axes;
+  if (first.points > GRID_TABLE_MAX.first || second.points > GRID_TABLE_MAX.second) {
+    return <p className="text-xs text-ink-soft">The grid ({first.points} × {second.points} points) is too large to tabulate here; the record lists every point.</p>;
+  }
+  const grid = sweepGrid(result, criterion);
+  return (
+    <div className="overflow-x-auto">
+      <table className="text-xs" data-testid="sweep-grid" aria-label={`${criterion} over the grid${unit ? `, ${unit}` : ''}`}>
+        <caption className="text-left text-ink-soft">{criterion}{unit ? ` (${unit})` : ''}: rows {second.label}, columns {first.label}; failing points marked ✗.</caption>
+        <thead><tr><th scope="col">{second.label} ↓, {first.label} →</th>{grid.firstValues.map((x, i) => <th key={i} scope="col" className="px-1 text-right">{fmt(x, 4)}</th>)}</tr></thead>
+        <tbody>
+          {grid.rows.map((r, k) => (
+            <tr key={k}>
+              <th scope="row" className="px-1 text-right">{fmt(r.secondValue, 4)}</th>
+              {r.cells.map((c, i) => (
+                <td key={i} className={`px-1 text-right ${c.failing ? 'bg-fail/10 text-fail' : ''}`} title={c.error}>{c.error ? 'n/c' : `${fmt(c.value)}${c.failing ? ' ✗' : ''}`}</td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+/** The axis of a sweep from the form's text fields. */
+const axisOf = (key: string, from: string, to: string, points: string) => ({ input: INPUTS.find((i) => i.key === key)!.input, fromValue: Number(from), toValue: Number(to), points: Number(points) });
+
 function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
   const job = useExploration<SweepResult>(revisionId);
   const [key, setKey] = useState(INPUTS[0].key);
-  const chosen = INPUTS.find((i) => i.key === key)!;
-  const [from, setFrom] = useState(String(chosen.from));
-  const [to, setTo] = useState(String(chosen.to));
+  const [from, setFrom] = useState(String(INPUTS[0].from));
+  const [to, setTo] = useState(String(INPUTS[0].to));
   const [points, setPoints] = useState('20');
+  const [withSecond, setWithSecond] = useState(false);
+  const [key2, setKey2] = useState(INPUTS[5].key);
+  const [from2, setFrom2] = useState(String(INPUTS[5].from));
+  const [to2, setTo2] = useState(String(INPUTS[5].to));
+  const [points2, setPoints2] = useState('5');
+  const pick = (k: string, setK: (v: string) => void, setF: (v: string) => void, setT: (v: string) => void) => {
+    const n = INPUTS.find((i) => i.key === k)!;
+    setK(n.key);
+    setF(String(n.from));
+    setT(String(n.to));
+  };
+  const totalPoints = Number(points) * (withSecond ? Number(points2) : 1);
   return (
     <section className="space-y-3" aria-labelledby="sweep-h">
       <h2 id="sweep-h" className="text-lg font-semibold">Sensitivity sweep</h2>
       {canRun && (
-        <form aria-label="Sweep settings" className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); job.start({ kind: 'sweep', axes: [{ input: chosen.input, fromValue: Number(from), toValue: Number(to), points: Number(points) }] }); }}>
-          <label className="text-sm">Input <select aria-label="Input" value={key} onChange={(e) => { const n = INPUTS.find((i) => i.key === e.target.value)!; setKey(n.key); setFrom(String(n.from)); setTo(String(n.to)); }} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
-          <label className="text-sm">From <input aria-label="From" value={from} onChange={(e) => setFrom(e.target.value)} className="w-24 border border-rule px-1" /></label>
-          <label className="text-sm">To <input aria-label="To" value={to} onChange={(e) => setTo(e.target.value)} className="w-24 border border-rule px-1" /></label>
-          <label className="text-sm">Points <input aria-label="Points" value={points} onChange={(e) => setPoints(e.target.value)} className="w-20 border border-rule px-1" /></label>
-          <Button type="submit" disabled={job.row?.status === 'running'}>Run the sweep</Button>
+        <form
+          aria-label="Sweep settings"
+          className="space-y-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            job.start({ kind: 'sweep', axes: [axisOf(key, from, to, points), ...(withSecond ? [axisOf(key2, from2, to2, points2)] : [])] });
+          }}
+        >
+          <div className="flex flex-wrap items-end gap-2">
+            <label className="text-sm">Input <select aria-label="Input" value={key} onChange={(e) => pick(e.target.value, setKey, setFrom, setTo)} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
+            <label className="text-sm">From <input aria-label="From" value={from} onChange={(e) => setFrom(e.target.value)} className="w-24 border border-rule px-1" /></label>
+            <label className="text-sm">To <input aria-label="To" value={to} onChange={(e) => setTo(e.target.value)} className="w-24 border border-rule px-1" /></label>
+            <label className="text-sm">Points <input aria-label="Points" value={points} onChange={(e) => setPoints(e.target.value)} className="w-20 border border-rule px-1" /></label>
+          </div>
+          <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={withSecond} onChange={(e) => setWithSecond(e.target.checked)} /> Vary a second input (one curve per value)</label>
+          {withSecond && (
+            <div className="flex flex-wrap items-end gap-2">
+              <label className="text-sm">Second input <select aria-label="Second input" value={key2} onChange={(e) => pick(e.target.value, setKey2, setFrom2, setTo2)} className="ml-1 border border-rule">{INPUTS.filter((i) => i.key !== key).map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
+              <label className="text-sm">From <input aria-label="Second from" value={from2} onChange={(e) => setFrom2(e.target.value)} className="w-24 border border-rule px-1" /></label>
+              <label className="text-sm">To <input aria-label="Second to" value={to2} onChange={(e) => setTo2(e.target.value)} className="w-24 border border-rule px-1" /></label>
+              <label className="text-sm">Points <input aria-label="Second points" value={points2} onChange={(e) => setPoints2(e.target.value)} className="w-20 border border-rule px-1" /></label>
+              {key2 === key && <span className="text-sm text-fail">Pick an input other than the first.</span>}
+            </div>
+          )}
+          <div className="flex items-center gap-2">
+            <Button type="submit" disabled={job.row?.status === 'running' || (withSecond && key2 === key)}>Run the sweep</Button>
+            {Number.isFinite(totalPoints) && totalPoints > 0 && <span className="text-xs text-ink-soft">{totalPoints.toLocaleString('en-GB')} grid points.</span>}
+          </div>
         </form>
       )}
       <ErrorNote error={job.error} />

@@ -2,7 +2,8 @@ import type { BondingStudy } from '../schemas/bonding-study.schema';
 import type { CriterionKey, LimitSet } from '../schemas/limit-set.schema';
 import type { BondingResults, CaseResult } from './bonding/results';
 import type { ExposureResults } from './exposure/solve-exposure';
-import { oversheathVoltages, standingVoltages } from './bonding/worst-values';
+import type { SheathEndVoltage } from './bonding/results';
+import { oversheathVoltage, standingVoltage } from './bonding/worst-values';
 import { tolerableVoltages } from './body-tolerance';
 import { adiabaticCurrentA } from './adiabatic';
 import { jointInWords } from './bonding/joint-names';
@@ -43,19 +44,19 @@ export function evaluateBondingCompliance(study: BondingStudy, results: BondingR
   for (const c of results.cases) {
     const isFault = c.kind !== 'normal' && c.kind !== 'emergency';
     // Standing voltage: what a person at the box, or an SVL to earth, sees — sheath to the local earth.
-    if (c.kind === 'normal') fromSet('standing-voltage-normal', 'Standing voltage at link boxes and open ends to the local earth, normal load', c, maxOf(standingVoltages(c)));
-    if (c.kind === 'emergency') fromSet('standing-voltage-emergency', 'Standing voltage at link boxes and open ends to the local earth, emergency load', c, maxOf(standingVoltages(c)));
+    if (c.kind === 'normal') fromSet('standing-voltage-normal', 'Standing voltage at link boxes and open ends to the local earth, normal load', c, worstOverEnds(c, standingVoltage));
+    if (c.kind === 'emergency') fromSet('standing-voltage-emergency', 'Standing voltage at link boxes and open ends to the local earth, emergency load', c, worstOverEnds(c, standingVoltage));
     if (c.kind === 'normal' && c.lossFactors.length) {
       fromSet('loss-factor', 'Sheath loss factor against the rating assumption', c, maxOf(c.lossFactors.map((l) => ({ value: l.lossFactor, where: `cable ${l.cable}` }))), '');
     }
     if (isFault) {
-      const joints = c.points.flatMap((p) => p.acrossJoint.map((a) => ({ value: a.voltageV, where: `${p.label}, cable ${a.cable}` })));
-      if (joints.length) fromSet('joint-voltage-fault', 'Voltage across the sectionalising insulation (sheath end to sheath end) during the fault', c, maxOf(joints));
+      const joints = worstAcrossJoints(c);
+      if (joints) fromSet('joint-voltage-fault', 'Voltage across the sectionalising insulation (sheath end to sheath end) during the fault', c, joints);
       if (c.eccCurrents.length) {
         fromSet('ecc-current-fault', 'ECC current during the fault', c, maxOf(c.eccCurrents.map((e) => ({ value: e.maxA, where: `ECC ${e.eccId}` }))), 'A');
       }
       const withstandV = Math.min(...study.cableTypes.map((t) => t.oversheathWithstandKv * 1000));
-      items.push(item('oversheath-fault', 'Sheath voltage to the surrounding earth (the larger of to remote and to local earth) against the oversheath withstand', c.caseId, maxOf(oversheathVoltages(c)), withstandV, 'V', 'cable type data: oversheath power-frequency withstand'));
+      items.push(item('oversheath-fault', 'Sheath voltage to the surrounding earth (the larger of to remote and to local earth) against the oversheath withstand', c.caseId, worstOverEnds(c, oversheathVoltage), withstandV, 'V', 'cable type data: oversheath power-frequency withstand'));
     }
     if (isFault && c.durationS !== undefined) {
       items.push(...touchItems(study, c, c.durationS));
@@ -184,6 +185,28 @@ const source = (limits: LimitSet, key: CriterionKey) => {
   const limit = limits.limits[key];
   return limit ? `${limits.name} v${limits.version}: ${limit.source}` : `no value in ${limits.name}`;
 };
+
+/**
+ * The largest sheath-end figure of a case (the first of equals, as maxOf), its place put in
+ * words for that end only: a route has thousands of ends, and a sweep evaluates them at every point.
+ */
+function worstOverEnds(c: CaseResult, figure: (e: SheathEndVoltage) => { value: number; reference: string }): Worst {
+  let best: { label: string; cable: string; value: number; reference: string } | undefined;
+  for (const p of c.points) {
+    for (const e of p.sheathEnds) {
+      const f = figure(e);
+      if (!best || f.value > best.value) best = { label: p.label, cable: e.cable, value: f.value, reference: f.reference };
+    }
+  }
+  return best ? { value: best.value, where: `${best.label}, sheath ${best.cable} ${best.reference}` } : NO_VALUE;
+}
+
+/** The largest voltage across a cut joint's insulation, or undefined where no sheath is cut; worded for the winner only. */
+function worstAcrossJoints(c: CaseResult): Worst | undefined {
+  let best: { label: string; cable: string; value: number } | undefined;
+  for (const p of c.points) for (const a of p.acrossJoint) if (!best || a.voltageV > best.value) best = { label: p.label, cable: a.cable, value: a.voltageV };
+  return best && { value: best.value, where: `${best.label}, cable ${best.cable}` };
+}
 
 function maxOf(values: Worst[]): Worst {
   return values.reduce((best, v) => (v.value > best.value ? v : best), values[0] ?? NO_VALUE);

@@ -133,7 +133,9 @@ export class NetworkBuilder {
     const reps = [...new Set(this.labels.map((_, i) => this.find(i)))];
     reps.sort((x, y) => this.orderKeys[x] - this.orderKeys[y] || x - y);
     const index = new Map<number, number>(reps.map((r, i) => [r, i]));
-    const unknown = (node: number) => (node === EARTH ? EARTH : index.get(this.find(node))!);
+    // Node → unknown as a table: every voltage read by the results goes through it.
+    const unknownOfNode = Int32Array.from(this.labels, (_, node) => index.get(this.find(node))!);
+    const unknown = (node: number) => (node === EARTH ? EARTH : unknownOfNode[node]);
     const admittances = this.admittances.filter((a) => !a.tag || activeTags.has(a.tag));
 
     this.assertEarthed(reps.length, unknown, admittances);

@@ -1,3 +1,4 @@
+import { EventEmitter } from 'node:events';
 import { and, desc, eq, sql } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
@@ -27,6 +28,15 @@ const PROGRESS_WRITE_MS = 250;
 const STALE_MINUTES = 15;
 
 const running = new Map<string, AbortController>();
+
+/** Progress of the runs in this process as it is reported (the event stream pushes it); runs elsewhere are read from their rows. */
+const progressEvents = new EventEmitter().setMaxListeners(0);
+
+/** Calls `listener` with each progress report of a run in this process, and with null when it ends; returns the unsubscribe. */
+export function onExplorationProgress(id: string, listener: (p: { done: number; total: number } | null) => void): () => void {
+  progressEvents.on(id, listener);
+  return () => void progressEvents.off(id, listener);
+}
 
 function assertEditableBy(actor: SessionUser, revision: { state: string; designerId: string }) {
   if (!editableStates.has(revision.state as never)) throw new AppError('ReadOnly', `The revision is ${revision.state.replace(/_/g, ' ')}: explorations can no longer be saved with it.`);
@@ -88,6 +98,7 @@ async function execute(s: AppServices, id: string, t: ExplorationTask) {
     const result = await runExploration(t, {
       signal: controller.signal,
       onProgress: ({ done, total }) => {
+        progressEvents.emit(id, { done, total });
         const now = Date.now();
         if (now - lastWrite < PROGRESS_WRITE_MS || done === total) return;
         lastWrite = now;
@@ -113,6 +124,7 @@ async function execute(s: AppServices, id: string, t: ExplorationTask) {
     await s.db.update(explorations).set({ status: 'failed', error: message, finishedAt: new Date() }).where(and(eq(explorations.id, id), eq(explorations.status, 'running'))).catch(() => undefined);
   } finally {
     running.delete(id);
+    progressEvents.emit(id, null);
   }
 }
 

@@ -9,6 +9,7 @@ import { body, heading, subheading } from './record-paragraphs';
 import { textTable } from './record-tables';
 import { recordTemplate } from './record-template';
 import { svgToPng } from './route-plot';
+import { sweepCurves } from '../explore/sweep-series';
 
 // The design-exploration section of the record: the bonding option chosen with its reason, and
 // every exploration saved with the revision (appraisal table; sweep figure and table; tornado;
@@ -73,15 +74,15 @@ function figureCriterion(s: SweepResult): string | undefined {
   return s.firstFailures[0]?.criterion ?? (qs.some((q) => q.criterion === 'standing-voltage-normal') ? 'standing-voltage-normal' : qs.find((q) => q.limit !== null)?.criterion);
 }
 
+/** Curve colours of the figure, light to dark along the second input (as on the Explore tab). */
+const CURVE_COLOURS = ['#e0a66a', '#c9824a', '#a4522a', '#7f3a1d', '#5b7fa6', '#1f5f8b', '#16406a', '#16202e'];
+
 export function sweepFigureSvg(s: SweepResult, criterion: string, width: number, height: number): string {
-  const rows = s.points.filter((p) => p.values.slice(1).every((v, k) => v === s.points[0].values[k + 1]));
-  const pts = rows.flatMap((p) => {
-    const q = p.quantities?.find((x) => x.criterion === criterion);
-    return q ? [{ x: p.values[0], y: q.value }] : [];
-  });
-  const q0 = rows.flatMap((p) => p.quantities ?? []).find((x) => x.criterion === criterion);
-  const limit = q0?.limit ?? null;
-  const m = { left: 90, right: 30, top: 30, bottom: 70 };
+  const { curves, limit, unit } = sweepCurves(s, criterion);
+  const drawn = curves.map((c) => ({ ...c, points: c.points.flatMap((p) => (p.y === null ? [] : [{ x: p.x, y: p.y }])) }));
+  const pts = drawn.flatMap((c) => c.points);
+  const labelled = curves.length > 1;
+  const m = { left: 90, right: labelled ? 130 : 30, top: 30, bottom: 70 };
   const xMin = Math.min(...pts.map((p) => p.x));
   const xMax = Math.max(...pts.map((p) => p.x), xMin + 1e-9);
   const yMax = Math.max(limit ?? 0, ...pts.map((p) => p.y), 1e-9) * 1.1;
@@ -93,15 +94,32 @@ export function sweepFigureSvg(s: SweepResult, criterion: string, width: number,
     const xv = xMin + ((xMax - xMin) * k) / 5;
     parts.push(`<text x="${px(xv)}" y="${height - m.bottom + 28}" font-size="18" text-anchor="middle">${num(xv, 3)}</text>`);
   }
-  parts.push(`<path d="${pts.map((p, i) => `${i ? 'L' : 'M'}${px(p.x).toFixed(1)},${py(p.y).toFixed(1)}`).join('')}" fill="none" stroke="#a4522a" stroke-width="2.5"/>`);
-  if (limit !== null) parts.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${py(limit)}" y2="${py(limit)}" stroke="#b3261e" stroke-width="2.5" stroke-dasharray="12 8"/><text x="${m.left + 8}" y="${py(limit) - 8}" font-size="16" fill="#b3261e">limit ${num(limit)} ${q0?.unit ?? ''}</text>`);
+  const esc = (t: string) => t.replace(/&/g, '&amp;').replace(/</g, '&lt;');
+  drawn.forEach((c, k) => {
+    if (!c.points.length) return;
+    const colour = labelled ? CURVE_COLOURS[Math.round((k * (CURVE_COLOURS.length - 1)) / (curves.length - 1))] : '#a4522a';
+    parts.push(`<path d="${c.points.map((p, i) => `${i ? 'L' : 'M'}${px(p.x).toFixed(1)},${py(p.y).toFixed(1)}`).join('')}" fill="none" stroke="${colour}" stroke-width="2.5"/>`);
+    // Each curve named at its right-hand end by the second input's value.
+    const end = c.points[c.points.length - 1];
+    if (labelled && c.secondValue !== null) parts.push(`<text x="${px(end.x) + 8}" y="${py(end.y) + 6}" font-size="15" fill="${colour}">${esc(num(c.secondValue))}</text>`);
+  });
+  if (limit !== null) parts.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${py(limit)}" y2="${py(limit)}" stroke="#b3261e" stroke-width="2.5" stroke-dasharray="12 8"/><text x="${m.left + 8}" y="${py(limit) - 8}" font-size="16" fill="#b3261e">limit ${num(limit)} ${unit}</text>`);
   const fail = s.firstFailures.find((f) => f.criterion === criterion);
   if (fail) parts.push(`<line x1="${px(fail.values[0])}" x2="${px(fail.values[0])}" y1="${m.top}" y2="${height - m.bottom}" stroke="#b3261e" stroke-width="2"/><text x="${px(fail.values[0]) + 6}" y="${m.top + 18}" font-size="16" fill="#b3261e">first fails</text>`);
   parts.push(`<line x1="${m.left}" x2="${width - m.right}" y1="${height - m.bottom}" y2="${height - m.bottom}" stroke="#16202e"/><line x1="${m.left}" x2="${m.left}" y1="${m.top}" y2="${height - m.bottom}" stroke="#16202e"/>`);
-  const esc = (t: string) => t.replace(/&/g, '&amp;').replace(/</g, '&lt;');
+  if (labelled) parts.push(`<text x="${width - m.right + 8}" y="${m.top - 8}" font-size="15">${esc(s.axes[1].label.split(',')[0])}</text>`);
   parts.push(`<text x="${(width + m.left) / 2}" y="${height - 16}" font-size="18" text-anchor="middle">${esc(s.axes[0].label)}</text>`);
-  parts.push(`<text x="24" y="${(height - m.bottom) / 2}" font-size="18" text-anchor="middle" transform="rotate(-90 24 ${(height - m.bottom) / 2})">${esc(`${criterion}${q0?.unit ? ` (${q0.unit})` : ''}`)}</text>`);
+  parts.push(`<text x="24" y="${(height - m.bottom) / 2}" font-size="18" text-anchor="middle" transform="rotate(-90 24 ${(height - m.bottom) / 2})">${esc(`${criterion}${unit ? ` (${unit})` : ''}`)}</text>`);
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" font-family="DejaVu Sans, Liberation Sans, sans-serif" fill="#16202e">${parts.join('')}</svg>`;
+}
+
+/** The figure's caption: what is plotted against what, and for a two-input sweep which curves are drawn. */
+export function sweepFigureCaption(s: SweepResult, criterion: string): string {
+  const base = `Figure: ${criterion} against ${s.axes[0].label}, with its limit and the first failing point`;
+  if (s.axes.length < 2) return `${base}.`;
+  const { curves, secondCount } = sweepCurves(s, criterion);
+  const values = curves.map((c) => num(c.secondValue)).join(', ');
+  return `${base}; one curve per value of ${s.axes[1].label} (${values}${curves.length < secondCount ? `: ${curves.length} of ${secondCount} values, evenly spaced; the table lists every point` : ''}), each labelled at its end.`;
 }
 
 function sweepBlocks(s: SweepResult, provenance: string): Array<Paragraph | Table> {
@@ -113,11 +131,11 @@ function sweepBlocks(s: SweepResult, provenance: string): Array<Paragraph | Tabl
   return [
     subheading('Sensitivity sweep'),
     body(`${provenance} Grid: ${grid}.`),
-    ...(s.firstFailures.length ? s.firstFailures.map((f) => body(`${f.criterion} first fails at ${f.values.map((v) => num(v)).join(', ')}.`)) : [body('Every check passes at every grid point.')]),
+    ...(s.firstFailures.length ? s.firstFailures.map((f) => body(`${f.criterion} first fails at ${s.axes.length > 1 ? f.values.map((v, k) => `${num(v)} (${s.axes[k].label})`).join(' with ') : num(f.values[0])}.`)) : [body('Every check passes at every grid point.')]),
     ...(criterion
       ? [
           new Paragraph({ keepNext: true, children: [new ImageRun({ type: 'png', data: svgToPng(sweepFigureSvg(s, criterion, layout.plot.widthPx, layout.plot.heightPx)), transformation: { width: layout.plot.widthEmuPt, height: layout.plot.heightEmuPt } })] }),
-          body(`Figure: ${criterion} against ${s.axes[0].label}, with its limit and the first failing point.`, { italic: true }),
+          body(sweepFigureCaption(s, criterion), { italic: true }),
         ]
       : []),
     ...(step > 1 ? [body(`The table lists every ${step}th point of ${s.points.length}, and the last.`, { italic: true })] : []),

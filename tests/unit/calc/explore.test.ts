@@ -1,9 +1,11 @@
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import demoLimits from '../../fixtures/limit-sets/demo-owner.json';
 import type { LimitSet } from '../../../src/lib/schemas/limit-set.schema';
 import type { BondingStudy } from '../../../src/lib/schemas/bonding-study.schema';
 import { calculateBondingStudy } from '../../../src/lib/calc/bonding/solve-bonding';
-import { appraiseBondingOptions, checkSweep, evaluateStudy, ExploreError, firstFailures, SWEEP_LIMITS, suggestPlacement, sweepPoint, tornado, type SweepAxis } from '../../../src/lib/calc/explore';
+import { appraiseBondingOptions, checkSweep, evaluateStudy, ExploreError, firstFailures, SWEEP_LIMITS, studyAt, suggestPlacement, sweepPoint, tornado, type SweepAxis } from '../../../src/lib/calc/explore';
+import { bondingStudySchema } from '../../../src/lib/schemas/bonding-study.schema';
 import { crossBondImbalanceM, sheathReactanceOhmPerM, solidBondingLoss } from '../../../src/lib/calc/closed-form';
 import { referenceStudy, relativeError, sections } from '../../helpers/reference-study';
 
@@ -91,12 +93,38 @@ describe('sensitivity sweep', () => {
   it('calculates in checks-only scope exactly the figures of a full calculation, without the extras', () => {
     const fullResults = calculateBondingStudy(base);
     const lean = calculateBondingStudy(base, 'checks');
-    // Same figures everywhere the checklist reads (points, SVLs, currents, loss factors), to the bit.
-    const figures = (r: typeof fullResults) => r.cases.map(({ profile: _p, handCheck: _h, ...rest }) => rest);
+    // Same figures everywhere the checklist reads (points, SVLs, currents, loss factors), to the bit;
+    // the per-segment current table, the worst-value summary and the profile are left out.
+    const figures = (r: typeof fullResults) => r.cases.map(({ profile: _p, handCheck: _h, sheathCurrents, ...rest }) => ({ ...rest, sheathCurrents: sheathCurrents.map(({ perSegment: _s, ...s }) => s) }));
     expect(figures(lean)).toEqual(figures(fullResults));
-    expect(lean.cases.every((c) => c.profile.series.length === 0)).toBe(true);
+    expect(lean.cases.every((c) => c.profile.series.length === 0 && c.sheathCurrents.every((s) => s.perSegment.length === 0))).toBe(true);
     expect(lean.crossChecks).toEqual([]);
+    expect(lean.worst).toEqual([]);
     expect(fullResults.cases.every((c) => c.profile.series.length > 0)).toBe(true);
+    // The largest sheath current is the largest of the full table's per-segment currents.
+    fullResults.cases.forEach((c) => c.sheathCurrents.forEach((s) => expect(s.maxA).toBe(Math.max(...s.perSegment.map((p) => p.currentA)))));
+  });
+
+  it('gives the same checklist in checks-only scope as in full, item for item, on a route with SVLs, faults and two major sections (demo study)', () => {
+    // Fernhollow (fictional demo): cross-bonded with SVLs at the link boxes, load, emergency and fault cases.
+    const study = bondingStudySchema.parse(JSON.parse(readFileSync('tests/fixtures/studies/fernhollow-cross-bonded.json', 'utf8')));
+    const full = evaluateStudy(study, limits);
+    const lean = evaluateStudy(study, limits, 'checks');
+    if (!full.ok || !lean.ok) throw new Error('the demo study should calculate');
+    expect(full.items.some((i) => i.criterion === 'svl-continuous') && full.items.some((i) => i.criterion === 'joint-voltage-fault')).toBe(true);
+    expect(lean.items).toEqual(full.items);
+    // And a sweep over it reproduces the full calculation at its grid points (earth resistance × fault current).
+    const axes: SweepAxis[] = [
+      { input: { kind: 'earth-resistance', at: 'link-boxes' }, fromValue: 2, toValue: 15, points: 2 },
+      { input: { kind: 'fault-current' }, fromValue: 10000, toValue: 40000, points: 2 },
+    ];
+    [0, 1, 2, 3].forEach((index) => {
+      const point = sweepPoint(study, limits, axes, index);
+      const single = evaluateStudy(studyAt(study, axes, point.values), limits);
+      if (!single.ok) throw new Error(single.error);
+      expect(point.quantities).toEqual(single.figures.quantities);
+      expect(point.failing).toEqual(single.figures.failing);
+    });
   });
 
   it('finds where a check starts to fail along the load current', () => {

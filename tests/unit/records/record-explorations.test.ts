@@ -32,6 +32,25 @@ describe('design exploration section of the record', () => {
     expect(svg).toContain('first fails');
   });
 
+  it('prints a two-input sweep as a family of curves, one per value of the second input, and the table of every point', async () => {
+    const axes = [
+      { input: { kind: 'load-current' as const }, fromValue: 500, toValue: 3000, points: 6 },
+      { input: { kind: 'soil-resistivity' as const }, fromValue: 20, toValue: 1000, points: 3 },
+    ];
+    const sweep = (await runExploration({ kind: 'sweep', study: referenceStudy(), limits, axes })) as SweepResult;
+    const svg = sweepFigureSvg(sweep, 'standing-voltage-normal', 800, 400);
+    // Three curves (stroke of a path), each named at its end by its soil resistivity.
+    expect(svg.match(/<path d="M/g)).toHaveLength(3);
+    for (const v of ['20', '510', '1000']) expect(svg).toContain(`>${v}</text>`);
+    expect(svg).toContain('limit 65 V');
+    const blocks = explorationBlocks({ choice: null, saved: [{ id: 's2', kind: 'sweep', params: {}, inputsHash: 'b'.repeat(64), engineVersion: '2.0.0', savedAt: new Date('2026-03-01'), savedBy: 'Test Designer (invented)', result: sweep }] });
+    const doc = readDocx(await Packer.toBuffer(new Document({ sections: [{ children: blocks }] })));
+    expect(doc.bodyText).toContain('one curve per value of Soil resistivity, Ω·m (20, 510, 1000)');
+    expect(doc.bodyText).toContain('standing-voltage-normal first fails at 3000 (Largest normal-load current (all load cases scaled), A) with 20 (Soil resistivity, Ω·m).');
+    expect(hasCell(doc.bodyText, 'Soil resistivity, Ω·m')).toBe(true);
+    expect(doc.media.length).toBe(1);
+  });
+
   it('adds nothing when nothing was saved', () => {
     expect(explorationBlocks(undefined)).toEqual([]);
     expect(explorationBlocks({ choice: null, saved: [] })).toEqual([]);

@@ -14,15 +14,16 @@ import { crossSectionImpedance, crossSectionKey } from './impedances';
 
 const PROFILE_STEPS = 6;
 
-/** Solves every case of a checked bonding study on one coupled network. */
 /**
  * What a calculation returns: `full`, everything the screens and the record show; `checks`, the
  * figures the checklist is evaluated from and nothing else (no route profile, hand-check tables,
- * closed-form cross-checks or impedance matrices), for design explorations that repeat the
- * calculation hundreds of times. Every figure `checks` returns equals the `full` one.
+ * closed-form cross-checks, impedance matrices, per-segment sheath currents or worst-value
+ * summary), for design explorations that repeat the calculation hundreds of times. Every figure
+ * `checks` returns equals the `full` one to the bit.
  */
 export type CalculationScope = 'full' | 'checks';
 
+/** Solves every case of a checked bonding study on one coupled network. */
 export function calculateBondingStudy(study: BondingStudy, scope: CalculationScope = 'full'): BondingResults {
   const full = scope === 'full';
   const model = buildBondingNetwork(study);
@@ -33,10 +34,11 @@ export function calculateBondingStudy(study: BondingStudy, scope: CalculationSco
   };
   // Each distinct cross-section's impedance matrix, once: the hand-check figures of every case use them.
   const crossSections = full ? distinctCrossSections(model).map((x) => ({ ...x, ...crossSectionImpedance(study, x.seg) })) : [];
+  const plans = pointPlans(study, model);
   const cases = study.cases.map((c) => {
     const sources = caseSources(study, model, c);
     const solution = solveOrExplain(networkFor(c.svlsConducting && study.svls.length > 0), sources, caseSegmentSources(study, model, c, sources), c);
-    const result = caseResult(study, model, c, solution, c.svlsConducting && study.svls.length > 0, full);
+    const result = caseResult(study, model, plans, c, solution, c.svlsConducting && study.svls.length > 0, full);
     return { ...result, handCheck: full ? handCheck(model, crossSections, sources, result.sheathCurrents.map((s) => s.maxA)) : NO_HAND_CHECK };
   });
   return {
@@ -44,7 +46,7 @@ export function calculateBondingStudy(study: BondingStudy, scope: CalculationSco
     engineVersion: ENGINE_VERSION,
     routeLengthM: model.topology.lengthM,
     cases,
-    worst: worstValues(cases),
+    worst: full ? worstValues(cases) : [],
     crossChecks: full ? bondingCrossChecks(study, model, cases) : [],
     impedanceMatrices: crossSections.map(({ seg, sectionIds, z, labels }) => ({
       crossSection: crossSectionName(seg),
@@ -115,11 +117,23 @@ function solveOrExplain(network: CompiledNetwork, sources: ReturnType<typeof cas
   }
 }
 
-function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCase, solution: NetworkSolution, conducting: boolean, withProfile = true): Omit<CaseResult, 'handCheck'> {
+/** A reported point as the model fixes it, the same in every case: what it is, its label, which sheath ends and cut joints it shows. */
+interface PointPlan {
+  joint: BondingNetworkModel['topology']['joints'][number];
+  nodes: BondingNetworkModel['jointNodes'][number];
+  kind: PointKind;
+  label: string;
+  /** Sheath ends in display order (arriving then leaving), one per distinct node: ends bonded together show once. */
+  ends: Array<{ node: number; cable: string; side: 'arriving' | 'leaving' }>;
+  /** Cables whose sheath is cut at the joint: the two ends whose voltage difference stresses the insulation. */
+  cuts: Array<{ cable: string; left: number; right: number }>;
+}
+
+/** The points of a model, planned once per calculation: every case reads the same nodes and labels. */
+function pointPlans(study: BondingStudy, model: BondingNetworkModel): PointPlan[] {
   const { topology, builder, cables, jointNodes } = model;
   const last = topology.joints.length - 1;
-
-  const points: PointResult[] = [];
+  const plans: PointPlan[] = [];
   topology.joints.forEach((joint, j) => {
     const midEarth = joint.join === 'straight' && joint.earthLeft;
     if (joint.join === 'straight' && !midEarth) return;
@@ -129,37 +143,46 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         : joint.join === 'cross' ? 'cross-bonding-link-box'
           : midEarth ? 'mid-point-earthing'
             : (joint.earthLeft && joint.earthRight) ? 'earthed-link-box' : 'open-end';
-    const earthV = nodes.earthBar === undefined ? undefined : solution.voltage(nodes.earthBar);
-    const toLocal = (v: Complex) => (earthV === undefined ? null : sub(v, earthV));
     const seen = new Set<number>();
-    const sheathEnds: PointResult['sheathEnds'] = [];
+    const ends: PointPlan['ends'] = [];
     (['arriving', 'leaving'] as const).forEach((side) => {
       (side === 'arriving' ? nodes.left : nodes.right).forEach((node, k) => {
         const rep = builder.find(node);
         if (seen.has(rep)) return;
         seen.add(rep);
-        const v = solution.voltage(node);
-        const local = toLocal(v);
-        sheathEnds.push({
-          cable: cables[k].label,
-          side,
-          voltageV: abs(v),
-          angleDeg: argDeg(v),
-          toLocalEarthV: local && abs(local),
-          toLocalEarthAngleDeg: local && argDeg(local),
-        });
+        ends.push({ node, cable: cables[k].label, side });
       });
     });
-    const acrossJoint =
+    const cuts =
       joint.hasLeft && joint.hasRight && joint.join !== 'straight'
-        ? cables.flatMap((cable, k) =>
-            builder.find(nodes.left[k]) === builder.find(nodes.right[k])
-              ? []
-              : [{ cable: cable.label, voltageV: abs(sub(solution.voltage(nodes.left[k]), solution.voltage(nodes.right[k]))) }],
-          )
+        ? cables.flatMap((cable, k) => (builder.find(nodes.left[k]) === builder.find(nodes.right[k]) ? [] : [{ cable: cable.label, left: nodes.left[k], right: nodes.right[k] }]))
         : [];
     // A named joint bay reads "joint bay JB-3 (joint 3) (960 m)"; unnamed joints read as before.
     const at = joint.userJointIndex === undefined ? `${joint.chainageM.toFixed(0)} m` : `${jointInWords(study, joint.userJointIndex)} (${joint.chainageM.toFixed(0)} m)`;
+    plans.push({ joint, nodes, kind, label: `${at}, ${kind.replace(/-/g, ' ')}`, ends, cuts });
+  });
+  return plans;
+}
+
+function caseResult(study: BondingStudy, model: BondingNetworkModel, plans: PointPlan[], c: StudyCase, solution: NetworkSolution, conducting: boolean, full = true): Omit<CaseResult, 'handCheck'> {
+  const { topology, cables } = model;
+
+  const points: PointResult[] = plans.map(({ joint, nodes, kind, label, ends, cuts }) => {
+    const earthV = nodes.earthBar === undefined ? undefined : solution.voltage(nodes.earthBar);
+    const toLocal = (v: Complex) => (earthV === undefined ? null : sub(v, earthV));
+    const sheathEnds: PointResult['sheathEnds'] = ends.map(({ node, cable, side }) => {
+      const v = solution.voltage(node);
+      const local = toLocal(v);
+      return {
+        cable,
+        side,
+        voltageV: abs(v),
+        angleDeg: argDeg(v),
+        toLocalEarthV: local && abs(local),
+        toLocalEarthAngleDeg: local && argDeg(local),
+      };
+    });
+    const acrossJoint = cuts.map(({ cable, left, right }) => ({ cable, voltageV: abs(sub(solution.voltage(left), solution.voltage(right))) }));
     const localEarth: LocalEarth | null =
       earthV === undefined
         ? null
@@ -170,11 +193,11 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
             angleDeg: argDeg(earthV),
             electrodeCurrentA: nodes.earthOhm === undefined ? 0 : abs(earthV) / nodes.earthOhm,
           };
-    points.push({
+    return {
       jointIndex: joint.userJointIndex ?? null,
       chainageM: joint.chainageM,
       kind,
-      label: `${at}, ${kind.replace(/-/g, ' ')}`,
+      label,
       sheathEnds,
       acrossJoint,
       earthBarV: earthV === undefined ? undefined : abs(earthV),
@@ -186,7 +209,7 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
       }),
       maxV: Math.max(0, ...sheathEnds.map((e) => e.voltageV)),
       maxToLocalEarthV: earthV === undefined ? null : Math.max(0, ...sheathEnds.map((e) => e.toLocalEarthV ?? 0)),
-    });
+    };
   });
 
   const svls = model.svls.map((s): SvlResult => {
@@ -210,14 +233,14 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
   });
 
   const segmentCurrents = model.segments.map((s) => solution.segmentCurrents(s.networkIndex));
+  // |I| per cable and segment, once: the per-segment table (full scope), the largest current and the loss factor read it.
+  const sheathCurrentA = cables.map((_, k) => topology.segments.map((_seg, i) => abs(segmentCurrents[i][k])));
   const sheathCurrents = cables.map((cable, k) => {
-    const perSegment = topology.segments.map((seg, i) => ({
-      sectionId: seg.sectionId,
-      startM: seg.startM,
-      lengthM: seg.lengthM,
-      currentA: abs(segmentCurrents[i][k]),
-    }));
-    return { cable: cable.label, maxA: Math.max(...perSegment.map((p) => p.currentA)), perSegment };
+    const currents = sheathCurrentA[k];
+    let maxA = -Infinity;
+    for (const a of currents) if (a > maxA) maxA = a;
+    const perSegment = full ? topology.segments.map((seg, i) => ({ sectionId: seg.sectionId, startM: seg.startM, lengthM: seg.lengthM, currentA: currents[i] })) : [];
+    return { cable: cable.label, maxA, perSegment };
   });
   const eccCurrents = model.eccIds.map((eccId) => ({
     eccId,
@@ -233,7 +256,9 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         const current = circuitCurrentA(c, cable.circuitId);
         if (current <= 0) return [];
         const type = study.cableTypes.find((t) => t.id === study.circuits.find((x) => x.id === cable.circuitId)!.cableTypeId)!;
-        const sheathLoss = sheathCurrents[k].perSegment.reduce((s, p) => s + type.sheathResistanceOhmPerKm * p.lengthM * p.currentA ** 2, 0);
+        // Summed in segment order, as a reduce over the per-segment table would: the same figure to the bit in either scope.
+        let sheathLoss = 0;
+        topology.segments.forEach((seg, i) => (sheathLoss = sheathLoss + type.sheathResistanceOhmPerKm * seg.lengthM * sheathCurrentA[k][i] ** 2));
         return [{ cable: cable.label, lossFactor: sheathLoss / (type.conductorResistanceOhmPerKm * topology.lengthM * current ** 2) }];
       })
     : [];
@@ -253,7 +278,7 @@ function caseResult(study: BondingStudy, model: BondingNetworkModel, c: StudyCas
         ? [{ jointIndex: joint.userJointIndex, maxA: Math.max(...cables.map((_, k) => abs(segmentCurrents[joint.index - 1][k]))) }]
         : [],
     ),
-    profile: withProfile ? routeProfile(model, solution) : { chainageM: [], series: [] },
+    profile: full ? routeProfile(model, solution) : { chainageM: [], series: [] },
   };
 }
 
