@@ -72,6 +72,9 @@ export const assetSummaries = pgTable(
     index('asset_summaries_name_idx').on(t.projectId, t.name, t.assetId),
     index('asset_summaries_due_idx').on(t.projectId, sql`coalesce(${t.nextDueOn}, '9999-12-31'::date)`, t.assetId),
     index('asset_summaries_margin_idx').on(t.projectId, sql`coalesce(${t.worstMarginPct}, 1e9::float8)`, t.assetId),
+    // The search box (ILIKE '%text%' on code or name): trigram indexes (pg_trgm, migration trigram_extension).
+    index('asset_summaries_code_trgm_idx').using('gin', t.code.op('gin_trgm_ops')),
+    index('asset_summaries_name_trgm_idx').using('gin', t.name.op('gin_trgm_ops')),
     index('asset_summaries_standing_idx').on(t.projectId, t.standing, sql`coalesce(${t.nextDueOn}, '9999-12-31'::date)`, t.assetId),
   ],
 );
