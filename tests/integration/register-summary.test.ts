@@ -94,6 +94,19 @@ describe('the register summary follows every write', { timeout: 120_000 }, () =>
     expect(await current('circuit')).toMatchObject({ openRemarks: 1, issued: `${study.code} rev 1` });
   });
 
+  it('writes racing from both sides (remarks on the study, records on the asset) leave the summary current', async () => {
+    // Each side refreshes the asset's summary in its own transaction; the refresh waits for the
+    // other's lock and reads after it commits, so neither overwrites the other with stale figures.
+    const record = (i: number) => {
+      const form = new FormData();
+      for (const [k, v] of Object.entries({ obligationTypeId: std.oversheathId, doneOn: daysFromToday(-i), performedBy: `Race contractor ${i} (invented)`, values: '5, 6', remarks: '' })) form.set(k, v);
+      return sessions.designer.fetch(`/api/assets/${ids.circuit}/records`, { method: 'POST', body: form });
+    };
+    const results = await Promise.all(Array.from({ length: 4 }, (_, i) => [send(sessions.checker, 'POST', `/api/revisions/${revision2}/remarks`, { body: `Race remark ${i}.` }), record(i)]).flat());
+    expect(results.map((r) => r.status)).toEqual(Array(8).fill(201));
+    expect(await current('circuit')).toMatchObject({ openRemarks: 5, done: 1 });
+  });
+
   it('issuing the next revision supersedes the first: covered by revision 2', async () => {
     await json(await send(sessions.designer, 'POST', `/api/revisions/${revision2}/calculate`), 200);
     await prepareForSubmit(sessions.designer, revision2);
