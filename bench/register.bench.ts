@@ -1,6 +1,7 @@
 // npm run bench:register (through scripts/bench-server.sh): latency of the register's pages
 // with 5,000 assets in one project (half covered by the demo's issued study, each owing four
-// obligations with due dates spread over two years), 20 connections, on loopback. Figures only;
+// obligations with due dates spread over two years), 20 connections, on loopback. The assets are
+// inserted in SQL: the asset_summaries triggers fill the register's table as for any write. Figures only;
 // the target is p95 ≤ 100 ms per route (issue 16). On 2 shared cores, run it with nothing else busy.
 import autocannon from 'autocannon';
 import pg from 'pg';
@@ -76,6 +77,9 @@ for (const sort of sorts) {
   }
 }
 console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route, ${ASSETS} assets in the project\n`);
+// What any signed-in request costs on this machine at this moment (session, middleware, JSON):
+// the floor under the register's figures, so that a busy machine can be told from a slow query.
+await load('baseline: GET /api/me (no register work)', cookie, [{ method: 'GET', path: '/api/me' }]);
 await load('register, first page, sorted by code', cookie, [{ method: 'GET', path: `/api/projects/${projectId}/register?pageSize=50` }]);
 await load('register, deep pages, every sort', cookie, deep);
 await load('register, status filter (overdue)', cookie, [{ method: 'GET', path: `/api/projects/${projectId}/register?pageSize=50&status=overdue&sort=nextDue` }]);

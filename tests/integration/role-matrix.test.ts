@@ -20,6 +20,9 @@ const PARTICIPANTS: Role[] = ['designer', 'checker', 'approver'];
 const AUDIT_READERS: Role[] = ['auditor', 'admin', 'outsider'];
 
 interface Fixture {
+  /** Register assets that each allowed role removes, or unlinks from the issued study, once. */
+  removable: Record<string, string>;
+  unlinkable: Record<string, string>;
   projectId: string;
   limitSetId: string;
   issuedStudyId: string;
@@ -142,6 +145,10 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   { route: 'GET /api/register/history', allowed: ROLES, status: 200, call: () => ({ method: 'GET', path: '/api/register/history' }) },
   { route: 'POST /api/register/reminders', allowed: ['admin'], status: 200, call: () => ({ method: 'POST', path: '/api/register/reminders' }) },
   { route: 'GET /api/assets/[assetId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/assets/${f.circuitAssetId}` }) },
+  { route: 'PATCH /api/assets/[assetId]', allowed: ['designer', 'approver'], status: 200, call: (f) => ({ method: 'PATCH', path: `/api/assets/${f.circuitAssetId}`, body: { name: 'Matrix circuit, renamed (invented)' } }) },
+  { route: 'DELETE /api/assets/[assetId]', allowed: ['designer', 'approver'], status: 200, call: (f, role) => ({ method: 'DELETE', path: `/api/assets/${f.removable[role] ?? f.removable.designer}` }) },
+  { route: 'PATCH /api/assets/[assetId]/studies/[studyId]', allowed: ['designer', 'approver'], status: 200, call: (f) => ({ method: 'PATCH', path: `/api/assets/${f.siteAssetId}/studies/${f.issuedStudyId}`, body: { siteEnd: 'start' } }) },
+  { route: 'DELETE /api/assets/[assetId]/studies/[studyId]', allowed: ['designer', 'approver'], status: 200, call: (f, role) => ({ method: 'DELETE', path: `/api/assets/${f.unlinkable[role] ?? f.unlinkable.designer}/studies/${f.issuedStudyId}` }) },
   { route: 'POST /api/assets/[assetId]/studies', allowed: ['designer', 'approver'], status: 201, call: (f) => ({ method: 'POST', path: `/api/assets/${f.circuitAssetId}/studies`, body: { studyId: f.issuedStudyId, studyCircuitId: 'C1' } }) },
   {
     route: 'POST /api/assets/[assetId]/records',
@@ -213,11 +220,20 @@ describe('role × endpoint matrix', () => {
     const obligationType = await json(await send(sessions.admin, 'POST', '/api/admin/obligation-types', { ownerStandard: standard, name: 'Matrix inspection', appliesTo: 'circuit', firstDueMonths: 0, intervalMonths: 12, basis: 'Invented for the matrix' }), 201);
     const circuit = await json(await send(sessions.designer, 'POST', `/api/projects/${projectId}/assets`, { kind: 'circuit', code: `MXC-${Date.now() % 1000000}`, name: 'Matrix circuit (invented)', ownerStandard: standard, inServiceOn: '2025-01-01' }), 201);
     const site = await json(await send(sessions.designer, 'POST', `/api/projects/${projectId}/assets`, { kind: 'site', siteKind: 'substation', code: `MXS-${Date.now() % 1000000}`, name: 'Matrix site (invented)', ownerStandard: standard }), 201);
+    await json(await send(sessions.designer, 'POST', `/api/assets/${site.id}/studies`, { studyId: issued.studyId, siteEnd: 'end' }), 201);
+    const removable: Record<string, string> = {};
+    const unlinkable: Record<string, string> = {};
+    for (const role of ['designer', 'approver']) {
+      const make = async (what: string) => (await json(await send(sessions.designer, 'POST', `/api/projects/${projectId}/assets`, { kind: 'circuit', code: `MX${what}-${role}-${Date.now() % 1000000}`, name: 'Matrix circuit (invented)', ownerStandard: standard }), 201)).id as string;
+      removable[role] = await make('R');
+      unlinkable[role] = await make('U');
+      await json(await send(sessions.designer, 'POST', `/api/assets/${unlinkable[role]}/studies`, { studyId: issued.studyId }), 201);
+    }
     const evidenceForm = uploadForm('other', 'inspection.csv', 'item,state\nbox,locked\n');
     evidenceForm.delete('kind');
     for (const [k, v] of Object.entries({ obligationTypeId: obligationType.id, doneOn: '2025-06-01', performedBy: 'Matrix contractor (invented)' })) evidenceForm.set(k, v);
     const evidenceRecord = await json(await send(sessions.designer, 'POST', `/api/assets/${circuit.id}/records`, evidenceForm), 201);
-    f = { exploreDraft, explorationId: appraisal.id, circuitAssetId: circuit.id, siteAssetId: site.id, obligationTypeId: obligationType.id, evidenceRecordId: evidenceRecord.id, projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
+    f = { removable, unlinkable, exploreDraft, explorationId: appraisal.id, circuitAssetId: circuit.id, siteAssetId: site.id, obligationTypeId: obligationType.id, evidenceRecordId: evidenceRecord.id, projectId, limitSetId, issuedStudyId: issued.studyId, draft, draftToWithdraw, inCheck, inCheckToReturn, checkedFailing, checkedToReturn, failingItemKey: failing.itemKey, remarkId: remark.id, inCheckToAgree, agreeCount, checkValueId: checkValue.id, checkValueToDelete: checkValueToDelete.id, userId: me.id, fileId: file.id, measurementsId: measurements.id };
   });
 
   for (const entry of matrix) {

@@ -1,8 +1,12 @@
-import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../lib/queries/api-client';
 import { assetQuery } from '../../lib/queries/register.queries';
 import { Busy, Button, Caution, ErrorNote } from '../ui/parts';
+import AssetEditForm from './AssetEditForm';
 import RecordObligationForm from './RecordObligationForm';
 import StudyLinkForm from './StudyLinkForm';
+import StudyLinkRow from './StudyLinkRow';
 import SystemDataForm from './SystemDataForm';
 
 const withUnit = (v: number | null, unit: string) => (v === null ? '—' : `${v} ${unit}`);
@@ -12,6 +16,16 @@ const interval = (months: number | null) => (months === null ? 'once' : months %
 /** One asset: the studies covering it, what it owes and when, its records with evidence, and (sites) its system data. */
 export default function AssetPanel({ assetId, roles, onClose }: { assetId: string; roles: Record<string, string[]>; onClose: () => void }) {
   const { data, isPending, error } = useQuery(assetQuery(assetId));
+  const client = useQueryClient();
+  const [editing, setEditing] = useState(false);
+  const [confirmingRemoval, setConfirmingRemoval] = useState(false);
+  const remove = useMutation({
+    mutationFn: () => api(`/api/assets/${assetId}`, { method: 'DELETE' }),
+    onSuccess: () => {
+      void client.invalidateQueries({ queryKey: ['register'] });
+      onClose();
+    },
+  });
   if (error) return <ErrorNote error={error} />;
   if (isPending) return <Busy label="Loading the asset…" />;
   const { asset } = data;
@@ -28,8 +42,22 @@ export default function AssetPanel({ assetId, roles, onClose }: { assetId: strin
             {asset.kind === 'site' ? `Site (${asset.siteKind})` : 'Circuit'}{asset.route ? `, ${asset.route}` : ''} · {asset.ownerStandard} · in service {asset.inServiceOn ?? 'date not given'}
           </p>
         </div>
-        <Button tone="plain" className="ml-auto" onClick={onClose}>Close</Button>
+        <div className="ml-auto flex gap-2">
+          {can('designer', 'approver') && !asset.removedAt && !editing && <Button tone="plain" onClick={() => setEditing(true)}>Change details</Button>}
+          {can('designer', 'approver') && !asset.removedAt && !confirmingRemoval && <Button tone="plain" onClick={() => setConfirmingRemoval(true)}>Remove from the register</Button>}
+          <Button tone="plain" onClick={onClose}>Close</Button>
+        </div>
       </div>
+      {asset.removedAt && <p role="status" className="text-sm font-semibold text-fail">Removed from the register on {asset.removedAt.slice(0, 10)}; its records are kept.</p>}
+      {confirmingRemoval && (
+        <div role="group" aria-label={`Remove ${asset.code}`} className="flex flex-wrap items-center gap-3 rounded border border-fail p-3 text-sm">
+          <span>{asset.code} leaves the register: its study links and what it owes go, no more reminders are sent, and its code is free again. Its records, evidence and audit trail are kept.</span>
+          <Button tone="danger" disabled={remove.isPending} onClick={() => remove.mutate()}>Remove {asset.code}</Button>
+          <Button tone="plain" onClick={() => setConfirmingRemoval(false)}>Keep it</Button>
+          {remove.error && <ErrorNote error={remove.error} />}
+        </div>
+      )}
+      {editing && <AssetEditForm asset={asset} onDone={() => setEditing(false)} />}
       <Caution />
 
       <div>
@@ -37,16 +65,11 @@ export default function AssetPanel({ assetId, roles, onClose }: { assetId: strin
         {data.studies.length === 0 ? <p className="text-sm text-ink-soft">No study is linked yet.</p> : (
           <ul className="list-disc pl-5 text-sm">
             {data.studies.map((s) => (
-              <li key={s.studyId}>
-                <a className="font-semibold text-copper hover:underline" href={`/studies/${s.studyId}`}>{s.code}</a> {s.title}
-                {s.revisionNumber !== null && <span className="text-ink-soft"> (latest revision {s.revisionNumber}, {s.state?.replace(/_/g, ' ')})</span>}
-                {s.studyCircuitId && <span className="text-ink-soft"> · circuit {s.studyCircuitId} in the study</span>}
-                {s.siteEnd && <span className="text-ink-soft"> · at the route {s.siteEnd}</span>}
-              </li>
+              <StudyLinkRow key={s.studyId} asset={asset} link={s} canChange={can('designer', 'approver') && !asset.removedAt} />
             ))}
           </ul>
         )}
-        {can('designer', 'approver') && <StudyLinkForm asset={asset} />}
+        {can('designer', 'approver') && !asset.removedAt && <StudyLinkForm asset={asset} />}
       </div>
 
       <div>

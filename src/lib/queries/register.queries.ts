@@ -34,7 +34,7 @@ export const registerHistoryQuery = (projectId?: string) =>
   });
 
 export interface AssetDetail {
-  asset: { id: string; projectId: string; kind: 'circuit' | 'site'; code: string; name: string; route: string; ownerStandard: string; inServiceOn: string | null; siteKind: string | null };
+  asset: { id: string; projectId: string; kind: 'circuit' | 'site'; code: string; name: string; route: string; ownerStandard: string; inServiceOn: string | null; siteKind: string | null; removedAt: string | null };
   studies: Array<{ studyId: string; code: string; title: string; state: string | null; revisionNumber: number | null; studyCircuitId: string | null; siteEnd: string | null }>;
   obligations: Array<{ type: { id: string; name: string; intervalMonths: number | null; basis: string; criterion: { quantity: string; unit: string; comparison: string; limit: number } | null }; lastDoneOn: string | null; lastResult: string | null; nextDueOn: string | null }>;
   records: Array<{ id: string; typeName: string; doneOn: string; performedBy: string; values: number[]; result: string; remarks: string; hasEvidence: boolean; evidenceName: string | null; recordedByName: string }>;

@@ -50,6 +50,10 @@ const STEP_WORDS: Record<string, string> = {
   'record-settings.set': 'changed how records show the engine\'s validation',
   'asset.created': 'added an asset to the register',
   'asset.study-linked': 'recorded that a study covers an asset',
+  'asset.edited': 'changed an asset in the register',
+  'asset.removed': 'removed an asset from the register',
+  'asset.study-link-changed': 'changed how a study covers an asset',
+  'asset.study-unlinked': 'recorded that a study no longer covers an asset',
   'obligation-type.added': 'added an obligation type to an owner standard',
   'obligation.recorded': 'recorded an obligation done on an asset',
   'system-data.published': 'published a version of a site\'s system data',
@@ -116,6 +120,9 @@ export function detailWords(type: string, d: Record<string, unknown>): string {
   }
   if (type === 'asset.created') return [str(d.code), str(d.name)].filter(Boolean).join(', ');
   if (type === 'asset.study-linked') return `${str(d.studyCode)} covers ${str(d.assetCode)}`;
+  if (type === 'asset.study-unlinked') return `${str(d.studyCode)} no longer covers ${str(d.assetCode)}`;
+  if (type === 'asset.removed') return [str(d.assetCode), str(d.name)].filter(Boolean).join(', ');
+  if (type === 'asset.edited' || type === 'asset.study-link-changed') return [str(d.assetCode), str(d.studyCode)].filter(Boolean).join(', ');
   if (type === 'obligation-type.added') return `${str(d.name)} (${str(d.ownerStandard)})`;
   if (type === 'obligation.recorded') return `${str(d.obligation)} at ${str(d.assetCode)} on ${str(d.doneOn)} by ${str(d.performedBy)}: ${str(d.result)}`;
   if (type === 'system-data.published') return `${str(d.site)} version ${str(d.version)} (${str(d.source)}, ${str(d.sourceDate)})`;

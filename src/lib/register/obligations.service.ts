@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, isNull } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
@@ -12,7 +12,7 @@ import { assertId } from '../db/revisions.repo';
 import { sha256Hex } from '../canonical-json';
 import { detectContentType } from '../files/content-type';
 import type { obligationRecordSchema, obligationTypeSchema } from '../schemas/register.schema';
-import { loadAsset } from './assets.service';
+import { loadAsset, loadLiveAsset, refuseRemoved } from './assets.service';
 import { owedTypesOf, refreshStanding } from './obligation-standing';
 
 export async function listObligationTypes(db: Database) {
@@ -27,7 +27,7 @@ export async function addObligationType(s: AppServices, admin: SessionUser, body
     const owing = await tx
       .select()
       .from(assets)
-      .where(and(eq(assets.ownerStandard, type.ownerStandard), type.appliesTo === 'both' ? undefined : eq(assets.kind, type.appliesTo)));
+      .where(and(eq(assets.ownerStandard, type.ownerStandard), isNull(assets.removedAt), type.appliesTo === 'both' ? undefined : eq(assets.kind, type.appliesTo)));
     for (const asset of owing) await refreshStanding(tx, asset, [type.id]);
     await appendAudit(tx, { actorId: admin.id, type: 'obligation-type.added', detail: { ownerStandard: type.ownerStandard, name: type.name, firstDueMonths: type.firstDueMonths, intervalMonths: type.intervalMonths, criterion: type.criterion, basis: type.basis } });
     return type;
@@ -56,7 +56,7 @@ export interface Evidence {
  * transaction, with the audit event.
  */
 export async function recordObligation(s: AppServices, actor: SessionUser, assetId: string, body: z.output<typeof obligationRecordSchema>, evidence: Evidence | null, maxBytes: number) {
-  const asset = await loadAsset(s.db, assetId);
+  const asset = refuseRemoved(await loadAsset(s.db, assetId));
   assertId(body.obligationTypeId, 'obligation type');
   const [type] = (await owedTypesOf(s.db, asset)).filter((t) => t.id === body.obligationTypeId);
   if (!type) throw new AppError('InvalidInput', undefined, [{ field: 'obligationTypeId', message: `This asset does not owe that obligation under ${asset.ownerStandard}.` }]);
@@ -75,6 +75,8 @@ export async function recordObligation(s: AppServices, actor: SessionUser, asset
   const result = judge(type.criterion, body.values);
   try {
     return await inTransaction(s.pool, async (tx) => {
+      // Again inside, locked: the asset may have been edited or removed while the file was stored.
+      const live = await loadLiveAsset(tx, assetId);
       const [row] = await tx
         .insert(obligationRecords)
         .values({
@@ -93,7 +95,7 @@ export async function recordObligation(s: AppServices, actor: SessionUser, asset
           recordedBy: actor.id,
         })
         .returning();
-      await refreshStanding(tx, asset, [type.id]);
+      await refreshStanding(tx, live, [type.id]);
       await appendAudit(tx, {
         actorId: actor.id,
         type: 'obligation.recorded',

@@ -26,65 +26,59 @@ export interface RegisterRow {
   status: RegisterStatus;
 }
 
-// The status order of registerStatus(), as SQL, so that filters, sorting and paging happen in
-// the database. registerStatus() stays the definition; the integration tests hold them together.
-const statusRank = sql`case when r.issued_count = 0 then 0 when r.open_reviews > 0 then 1 when r.overdue > 0 then 2 when r.due_soon > 0 then 3 else 4 end`;
-
-const SORT_KEYS: Record<RegisterQuery['sort'], SQL> = {
-  code: sql`r.code`,
-  name: sql`r.name`,
-  status: statusRank,
-  nextDue: sql`coalesce(r.next_due_on, '9999-12-31'::date)`,
-  margin: sql`coalesce(r.worst_margin_pct, 1e9)::float8`,
-};
-
 /**
- * Every asset of the projects with what the register shows of it. One statement: the per-asset
- * figures are lateral index look-ups (links, issued revisions, their worst computed margin,
- * open remark threads, open reviews, obligation standing), so the cost grows with the assets
- * asked for, not with the history behind them.
+ * The status of a summary row as its index in registerStatuses. `standing` holds the part that
+ * does not depend on the date (0 no issued study, 1 needs review); for the rest the earliest due
+ * date against today decides: before today, overdue; within the window, due soon; else covered.
+ * registerStatus() stays the definition; the integration tests hold them together.
  */
-function registerRows(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'search'>, today: string) {
-  const soon = addDays(today, DUE_SOON_DAYS);
-  return sql`
-    select a.id, a.project_id, p.code as project_code, a.kind, a.code, a.name,
-      coalesce(iss.issued, '') as issued, coalesce(iss.issued_count, 0) as issued_count, iss.worst_margin_pct,
-      coalesce(rem.open_remarks, 0) as open_remarks, coalesce(rev.open_reviews, 0) as open_reviews,
-      coalesce(ob.done, 0) as done, coalesce(ob.due_soon, 0) as due_soon, coalesce(ob.overdue, 0) as overdue, ob.next_due_on, to_char(ob.next_due_on, 'YYYY-MM-DD') as next_due_text
-    from assets a
-    join projects p on p.id = a.project_id
-    left join lateral (
-      select count(*)::int as issued_count, string_agg(s.code || ' rev ' || rv.number, ', ' order by s.code) as issued, min(m.worst)::float8 as worst_margin_pct
-      from study_assets sa
-      join studies s on s.id = sa.study_id
-      join revisions rv on rv.study_id = s.id and rv.state = 'issued'
-      left join lateral (select min(ci.margin_pct) as worst from checklist_items ci where ci.revision_id = rv.id and ci.kind = 'computed') m on true
-      where sa.asset_id = a.id
-    ) iss on true
-    left join lateral (
-      select sum(ss.open_remarks)::int as open_remarks from study_assets sa join study_summaries ss on ss.study_id = sa.study_id where sa.asset_id = a.id
-    ) rem on true
-    left join lateral (
-      select count(*)::int as open_reviews
-      from study_assets sa join study_reviews sr on sr.study_id = sa.study_id join revisions rv on rv.id = sr.revision_id and rv.state = 'issued'
-      where sa.asset_id = a.id
-    ) rev on true
-    left join lateral (
-      select count(*) filter (where ao.last_done_on is not null)::int as done,
-        count(*) filter (where ao.next_due_on >= ${today}::date and ao.next_due_on <= ${soon}::date)::int as due_soon,
-        count(*) filter (where ao.next_due_on < ${today}::date)::int as overdue,
-        min(ao.next_due_on) as next_due_on
-      from asset_obligations ao where ao.asset_id = a.id
-    ) ob on true
-    where ${assetFilter(projectIds, q)}`;
+const statusRank = (today: string, soon: string) =>
+  sql`(case when s.standing < 2 then s.standing when s.next_due_on < ${today}::date then 2 when s.next_due_on <= ${soon}::date then 3 else 4 end)`;
+
+// The earliest due date, with "nothing due" last: the expression the indexes hold.
+const dueKey = sql`coalesce(s.next_due_on, '9999-12-31'::date)`;
+
+/** Each status as a condition on stored columns: a range of the (project, standing, due) index. */
+function statusCondition(status: RegisterStatus, today: string, soon: string): SQL {
+  switch (status) {
+    case 'no issued study':
+      return sql`s.standing = 0`;
+    case 'needs review':
+      return sql`s.standing = 1`;
+    case 'overdue':
+      return sql`s.standing = 2 and ${dueKey} < ${today}::date`;
+    case 'due within 30 days':
+      return sql`s.standing = 2 and ${dueKey} >= ${today}::date and ${dueKey} <= ${soon}::date`;
+    case 'covered':
+      return sql`s.standing = 2 and ${dueKey} > ${soon}::date`;
+  }
 }
 
-/** The conditions on the assets themselves (projects, kind, search): no per-asset figures needed. */
-function assetFilter(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'search'>) {
+/**
+ * Each sort as the columns of an index on asset_summaries after project_id (asset_id last).
+ * Status sorts by standing, then the earliest due date: the status order of registerStatuses
+ * (overdue, due soon and covered are ranges of the due date within standing 2) without
+ * reference to today, so it pages by index too; within a status the soonest due comes first.
+ */
+const sortColumns = (sort: RegisterQuery['sort']): SQL[] =>
+  ({
+    code: [sql`s.code`],
+    name: [sql`s.name`],
+    status: [sql`s.standing`, dueKey],
+    nextDue: [dueKey],
+    margin: [sql`coalesce(s.worst_margin_pct, 1e9::float8)`],
+  })[sort];
+
+/** How the cursor's text of each sort column is typed back. */
+const cursorTypes: Record<RegisterQuery['sort'], string[]> = { code: ['text'], name: ['text'], status: ['smallint', 'date'], nextDue: ['date'], margin: ['float8'] };
+
+/** The conditions on the summaries (projects, kind, search, status). */
+function summaryFilter(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'search' | 'status'>, today: string, soon: string) {
   const search = q.search ? `%${q.search.replace(/[\\%_]/g, (c) => `\\${c}`)}%` : null;
-  return sql`a.project_id in (${sql.join(projectIds.map((id) => sql`${id}::uuid`), sql`, `)})
-      ${q.kind ? sql`and a.kind = ${q.kind}` : sql``}
-      ${search ? sql`and (a.code ilike ${search} or a.name ilike ${search})` : sql``}`;
+  return sql`s.project_id in (${sql.join(projectIds.map((id) => sql`${id}::uuid`), sql`, `)})
+      ${q.kind ? sql`and s.kind = ${q.kind}` : sql``}
+      ${search ? sql`and (s.code ilike ${search} or s.name ilike ${search})` : sql``}
+      ${q.status ? sql`and ${statusCondition(q.status, today, soon)}` : sql``}`;
 }
 
 interface RawRow {
@@ -104,7 +98,7 @@ interface RawRow {
   overdue: number;
   next_due_text: string | null;
   rank: number;
-  sort_key: string;
+  sort_key: string[];
 }
 
 const toRow = (r: RawRow): RegisterRow => ({
@@ -126,12 +120,12 @@ const toRow = (r: RawRow): RegisterRow => ({
   status: registerStatuses[r.rank],
 });
 
-const encodeCursor = (key: string, id: string) => Buffer.from(JSON.stringify([key, id])).toString('base64url');
+const encodeCursor = (keys: string[], id: string) => Buffer.from(JSON.stringify([keys, id])).toString('base64url');
 
-function decodeCursor(after: string): [string, string] {
+function decodeCursor(after: string, keyCount: number): [string[], string] {
   try {
-    const [key, id] = JSON.parse(Buffer.from(after, 'base64url').toString('utf8'));
-    if (typeof key === 'string' && typeof id === 'string' && /^[0-9a-f-]{36}$/i.test(id)) return [key, id];
+    const [keys, id] = JSON.parse(Buffer.from(after, 'base64url').toString('utf8'));
+    if (Array.isArray(keys) && keys.length === keyCount && keys.every((k) => typeof k === 'string') && typeof id === 'string' && /^[0-9a-f-]{36}$/i.test(id)) return [keys, id];
   } catch {
     // fall through to the error below
   }
@@ -140,25 +134,38 @@ function decodeCursor(after: string): [string, string] {
 
 /**
  * A page of the register, keyset-paged: `after` is the position of the last row shown, so a
- * page costs the same at any depth and rows added meanwhile neither repeat nor go missing.
+ * page costs the same at any depth and rows added meanwhile neither repeat nor go missing. One
+ * indexed read of asset_summaries; the due-soon and overdue counts, which depend on today, are
+ * counted from the stored due dates of the page's rows only.
  */
 export async function listRegister(db: Database, projectIds: string[], q: RegisterQuery, today: string) {
   if (!projectIds.length) return { total: 0, rows: [] as RegisterRow[], next: null as string | null };
-  const key = SORT_KEYS[q.sort];
+  const soon = addDays(today, DUE_SOON_DAYS);
+  const columns = sortColumns(q.sort);
   const cmp = q.direction === 'asc' ? sql`>` : sql`<`;
   const dir = q.direction === 'asc' ? sql`asc` : sql`desc`;
-  const statusFilter = q.status ? sql`and ${statusRank} = ${registerStatuses.indexOf(q.status)}` : sql``;
+  const order = sql.join([...columns.map((c) => sql`${c} ${dir}`), sql`s.asset_id ${dir}`], sql`, `);
   let position = sql``;
   if (q.after) {
-    const [k, id] = decodeCursor(q.after);
-    const typed = q.sort === 'nextDue' ? sql`${k}::date` : q.sort === 'margin' ? sql`${k}::float8` : q.sort === 'status' ? sql`${k}::int` : sql`${k}::text`;
-    position = sql`and (${key}, r.id) ${cmp} (${typed}, ${id}::uuid)`;
+    const [keys, id] = decodeCursor(q.after, cursorTypes[q.sort].length);
+    const typed = keys.map((k, i) => sql`${k}::${sql.raw(cursorTypes[q.sort][i])}`);
+    position = sql`and (${sql.join(columns, sql`, `)}, s.asset_id) ${cmp} (${sql.join(typed, sql`, `)}, ${id}::uuid)`;
   }
-  const base = registerRows(projectIds, q, today);
+  const where = summaryFilter(projectIds, q, today, soon);
   const [page, count] = await Promise.all([
-    db.execute(sql`select r.*, ${statusRank} as rank, (${key})::text as sort_key from (${base}) r where true ${statusFilter} ${position} order by ${key} ${dir}, r.id ${dir} limit ${q.pageSize + 1}`),
-    // Without a status filter the total needs no per-asset figures: count the assets alone.
-    q.status ? db.execute(sql`select count(*)::int as total from (${base}) r where true ${statusFilter}`) : db.execute(sql`select count(*)::int as total from assets a where ${assetFilter(projectIds, q)}`),
+    db.execute(sql`
+      select s.asset_id as id, s.project_id, p.code as project_code, s.kind, s.code, s.name, s.issued, s.issued_count, s.worst_margin_pct,
+        s.open_remarks, s.open_reviews, s.obligations_done as done,
+        (select count(*) from unnest(s.due_dates) d where d >= ${today}::date and d <= ${soon}::date)::int as due_soon,
+        (select count(*) from unnest(s.due_dates) d where d < ${today}::date)::int as overdue,
+        to_char(s.next_due_on, 'YYYY-MM-DD') as next_due_text, s.rank, s.sort_key
+      from (
+        select s.*, ${statusRank(today, soon)} as rank, array[${sql.join(columns.map((c) => sql`(${c})::text`), sql`, `)}] as sort_key from asset_summaries s
+        where ${where} ${position} order by ${order} limit ${q.pageSize + 1}
+      ) s
+      join projects p on p.id = s.project_id
+      order by ${order}`),
+    db.execute(sql`select count(*)::int as total from asset_summaries s where ${where}`),
   ]);
   const raw = page.rows as unknown as RawRow[];
   const more = raw.length > q.pageSize;
@@ -170,7 +177,8 @@ export async function listRegister(db: Database, projectIds: string[], q: Regist
 /** Counts per status of every asset of the projects, per project. */
 export async function statusCounts(db: Database, projectIds: string[], today: string) {
   if (!projectIds.length) return [];
-  const res = await db.execute(sql`select r.project_id, ${statusRank} as rank, count(*)::int as count from (${registerRows(projectIds, {}, today)}) r group by r.project_id, rank`);
+  const rank = statusRank(today, addDays(today, DUE_SOON_DAYS));
+  const res = await db.execute(sql`select s.project_id, ${rank} as rank, count(*)::int as count from asset_summaries s where s.project_id in (${sql.join(projectIds.map((id) => sql`${id}::uuid`), sql`, `)}) group by s.project_id, rank`);
   return (res.rows as Array<{ project_id: string; rank: number; count: number }>).map((r) => ({ projectId: r.project_id, status: registerStatuses[r.rank], count: r.count }));
 }
 

@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull } from 'drizzle-orm';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import { AppError } from '../errors';
@@ -8,7 +8,7 @@ import { appendAudit } from '../audit/audit-log';
 import { jsonDiff } from '../json-diff';
 import { MAIL_QUEUE } from '../mail/mail-delivery';
 import type { SystemDataInput } from '../schemas/register.schema';
-import { loadAsset } from './assets.service';
+import { loadAsset, loadLiveAsset, refuseRemoved } from './assets.service';
 import { needsReviewMessage } from './register-messages';
 import { reviewReasons } from './revalidation';
 
@@ -19,10 +19,10 @@ import { reviewReasons } from './revalidation';
  * The designer and the approver of each such revision are e-mailed. Earlier versions never change.
  */
 export async function publishSystemData(s: AppServices, actor: SessionUser, siteId: string, body: SystemDataInput) {
-  const site = await loadAsset(s.db, siteId);
+  const site = refuseRemoved(await loadAsset(s.db, siteId));
   if (site.kind !== 'site') throw new AppError('InvalidInput', 'System data belongs to a site; this asset is a circuit.');
   const circuitIds = body.maxLoads.map((l) => l.circuitAssetId);
-  const circuits = circuitIds.length ? await s.db.select().from(assets).where(and(inArray(assets.id, circuitIds), eq(assets.projectId, site.projectId), eq(assets.kind, 'circuit'))) : [];
+  const circuits = circuitIds.length ? await s.db.select().from(assets).where(and(inArray(assets.id, circuitIds), eq(assets.projectId, site.projectId), eq(assets.kind, 'circuit'), isNull(assets.removedAt))) : [];
   body.maxLoads.forEach((l, i) => {
     if (!circuits.some((c) => c.id === l.circuitAssetId)) throw new AppError('InvalidInput', undefined, [{ field: `maxLoads.${i}.circuitAssetId`, message: 'There is no circuit with this id in the site\'s project.' }]);
   });
@@ -30,7 +30,7 @@ export async function publishSystemData(s: AppServices, actor: SessionUser, site
 
   return inTransaction(s.pool, async (tx, sqlExecutor) => {
     // The site row lock orders two publications of the same site: version numbers never clash.
-    await tx.select({ id: assets.id }).from(assets).where(eq(assets.id, siteId)).for('update');
+    await loadLiveAsset(tx, siteId);
     const [previous] = await tx.select().from(siteSystemData).where(eq(siteSystemData.siteId, siteId)).orderBy(desc(siteSystemData.version)).limit(1);
     const [version] = await tx
       .insert(siteSystemData)

@@ -19,6 +19,30 @@ export const newAssetSchema = z
   })
   .refine((a) => a.kind === 'circuit' || a.siteKind !== undefined, { path: ['siteKind'], message: 'Say what kind of site it is.' });
 
+/**
+ * A change to an asset: only the fields sent change. Its kind stays (a circuit's links, records
+ * and a site's system data would not fit the other kind): remove it and add a new one instead.
+ */
+export const assetEditSchema = z
+  .object({
+    kind: z.undefined({ error: 'An asset stays a circuit or a site: remove it and add a new one instead.' }).optional(),
+    siteKind: z.enum(['substation', 'link-box-group', 'pipeline', 'fence', 'other'], { error: 'Choose a kind of site from the list.' }).optional(),
+    code: text('a code', 30).optional(),
+    name: text('a name', 200).optional(),
+    route: z.string({ error: 'The route is text.' }).trim().max(500, 'The route is at most 500 characters.').optional(),
+    ownerStandard: text('the owner standard', 100).optional(),
+    inServiceOn: isoDate('In service on').nullable().optional(),
+  })
+  .refine((a) => Object.values(a).some((v) => v !== undefined), { path: ['name'], message: 'Change at least one field.' });
+
+/** A change to a study link: the circuit in the study, or the route end of a site (null clears it). */
+export const studyLinkEditSchema = z
+  .object({
+    studyCircuitId: z.string({ error: 'The circuit id in the study is text.' }).trim().min(1, 'Give the circuit id, or clear it.').max(40).nullable().optional(),
+    siteEnd: z.enum(['start', 'end'], { error: 'The route end is start or end.' }).nullable().optional(),
+  })
+  .refine((l) => l.studyCircuitId !== undefined || l.siteEnd !== undefined, { path: ['studyCircuitId'], message: 'Change the circuit id or the route end.' });
+
 export const studyLinkSchema = z.object({
   studyId: z.uuid('Choose a study.'),
   studyCircuitId: z.string().trim().min(1).max(40).optional(),

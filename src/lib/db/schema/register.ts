@@ -1,4 +1,5 @@
-import { date, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, smallint, text, timestamp, unique, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { projects } from './projects';
 import { revisions, studies } from './studies';
 import { users } from './users';
@@ -28,8 +29,54 @@ export const assets = pgTable(
     inServiceOn: date('in_service_on', { mode: 'string' }),
     createdBy: uuid('created_by').notNull().references(() => users.id),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    /** Set when the asset is taken off the register: its records and audit stay, it owes nothing more. */
+    removedAt: timestamp('removed_at', { withTimezone: true }),
+    removedBy: uuid('removed_by').references(() => users.id),
   },
-  (t) => [unique().on(t.projectId, t.code), index('assets_code_idx').on(t.code, t.id)],
+  // A removed asset's code may be given to a new one: codes are unique among the assets in the register.
+  (t) => [uniqueIndex('assets_project_code_live_idx').on(t.projectId, t.code).where(sql`${t.removedAt} is null`), index('assets_code_idx').on(t.code, t.id)],
+);
+
+/**
+ * What the register shows of each asset in the register (removed assets have none), kept
+ * current in the same transaction as every write to its inputs by database triggers (migration
+ * `asset_summary_triggers`), so a page of the register is one indexed read of this table. The
+ * status words that depend on today are not stored: `standing` holds the part that does not
+ * (no issued study / needs review / the rest), and the rest is read from `next_due_on` against
+ * today's date in the query (register-query.ts).
+ */
+export const assetSummaries = pgTable(
+  'asset_summaries',
+  {
+    assetId: uuid('asset_id').primaryKey().references(() => assets.id, { onDelete: 'cascade' }),
+    projectId: uuid('project_id').notNull().references(() => projects.id),
+    kind: assetKindEnum('kind').notNull(),
+    code: text('code').notNull(),
+    name: text('name').notNull(),
+    /** Covering issued revisions in words, e.g. "B01 rev 2, B04 rev 1". */
+    issued: text('issued').notNull().default(''),
+    issuedCount: integer('issued_count').notNull().default(0),
+    /** Smallest computed margin of the covering issued revisions (negative: failing). */
+    worstMarginPct: doublePrecision('worst_margin_pct'),
+    openRemarks: integer('open_remarks').notNull().default(0),
+    openReviews: integer('open_reviews').notNull().default(0),
+    obligationsDone: integer('obligations_done').notNull().default(0),
+    /** Every obligation's next due date, ascending: the page's due-soon and overdue counts. */
+    dueDates: date('due_dates', { mode: 'string' }).array().notNull().default(sql`'{}'::date[]`),
+    nextDueOn: date('next_due_on', { mode: 'string' }),
+    /** 0: no issued study, 1: needs review, 2: covered, due or overdue by next_due_on. */
+    standing: smallint('standing').notNull(),
+  },
+  (t) => [
+    index('asset_summaries_code_idx').on(t.projectId, t.code, t.assetId),
+    index('asset_summaries_name_idx').on(t.projectId, t.name, t.assetId),
+    index('asset_summaries_due_idx').on(t.projectId, sql`coalesce(${t.nextDueOn}, '9999-12-31'::date)`, t.assetId),
+    index('asset_summaries_margin_idx').on(t.projectId, sql`coalesce(${t.worstMarginPct}, 1e9::float8)`, t.assetId),
+    // The search box (ILIKE '%text%' on code or name): trigram indexes (pg_trgm, migration trigram_extension).
+    index('asset_summaries_code_trgm_idx').using('gin', t.code.op('gin_trgm_ops')),
+    index('asset_summaries_name_trgm_idx').using('gin', t.name.op('gin_trgm_ops')),
+    index('asset_summaries_standing_idx').on(t.projectId, t.standing, sql`coalesce(${t.nextDueOn}, '9999-12-31'::date)`, t.assetId),
+  ],
 );
 
 /** A study covers an asset; a circuit may be covered by several studies (route sections). */
@@ -202,6 +249,7 @@ export const registerSnapshots = pgTable(
 );
 
 export type Asset = typeof assets.$inferSelect;
+export type AssetSummary = typeof assetSummaries.$inferSelect;
 export type ObligationType = typeof obligationTypes.$inferSelect;
 export type ObligationRecord = typeof obligationRecords.$inferSelect;
 export type SiteSystemData = typeof siteSystemData.$inferSelect;

@@ -1,0 +1,2 @@
+CREATE INDEX "asset_summaries_code_trgm_idx" ON "asset_summaries" USING gin ("code" gin_trgm_ops);--> statement-breakpoint
+CREATE INDEX "asset_summaries_name_trgm_idx" ON "asset_summaries" USING gin ("name" gin_trgm_ops);

@@ -1,0 +1,62 @@
+import { useForm } from 'react-hook-form';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api, ApiError } from '../../lib/queries/api-client';
+import type { AssetDetail } from '../../lib/queries/register.queries';
+import { Button, ErrorNote } from '../ui/parts';
+
+interface Fields {
+  code: string;
+  name: string;
+  route: string;
+  siteKind: string;
+  ownerStandard: string;
+  inServiceOn: string;
+}
+
+const SITE_KINDS = ['substation', 'link-box-group', 'pipeline', 'fence', 'other'];
+
+/** Changes an asset's details; only the fields changed are sent, and each refusal shows beside its field. */
+export default function AssetEditForm({ asset, onDone }: { asset: AssetDetail['asset']; onDone: () => void }) {
+  const client = useQueryClient();
+  const initial: Fields = { code: asset.code, name: asset.name, route: asset.route, siteKind: asset.siteKind ?? '', ownerStandard: asset.ownerStandard, inServiceOn: asset.inServiceOn ?? '' };
+  const form = useForm<Fields>({ defaultValues: initial });
+  const save = useMutation({
+    mutationFn: (f: Fields) => {
+      const changed = Object.fromEntries(
+        (Object.keys(f) as Array<keyof Fields>)
+          .filter((k) => f[k] !== initial[k] && !(k === 'siteKind' && asset.kind !== 'site'))
+          .map((k) => [k, k === 'inServiceOn' ? f[k] || null : f[k]]),
+      );
+      return api(`/api/assets/${asset.id}`, { method: 'PATCH', body: changed });
+    },
+    onSuccess: () => {
+      void client.invalidateQueries({ queryKey: ['register'] });
+      onDone();
+    },
+    onError: (e) => {
+      if (e instanceof ApiError) for (const f of e.fields) if (f.field in initial) form.setError(f.field as keyof Fields, { message: f.message });
+    },
+  });
+  const input = 'mt-1 block w-full rounded border border-rule bg-panel px-2 py-1';
+  const err = (k: keyof Fields) => form.formState.errors[k] && <span className="text-xs text-fail">{form.formState.errors[k]?.message}</span>;
+  const fieldErrors = save.error instanceof ApiError ? save.error.fields.filter((f) => !(f.field in initial)) : [];
+  return (
+    <form aria-label="Change the asset" className="grid grid-cols-2 gap-3 rounded border border-rule p-3 text-sm md:grid-cols-3" onSubmit={form.handleSubmit((f) => save.mutate(f))}>
+      <label>Code<input className={input} {...form.register('code')} />{err('code')}</label>
+      <label>Name<input className={input} {...form.register('name')} />{err('name')}</label>
+      {asset.kind === 'site' ? (
+        <label>Site kind<select className={input} {...form.register('siteKind')}>{SITE_KINDS.map((k) => <option key={k}>{k}</option>)}</select>{err('siteKind')}</label>
+      ) : (
+        <label>Route<input className={input} {...form.register('route')} placeholder="from, to, via" />{err('route')}</label>
+      )}
+      <label>Owner standard<input className={input} {...form.register('ownerStandard')} />{err('ownerStandard')}</label>
+      <label>In service on (UTC date)<input className={input} {...form.register('inServiceOn')} placeholder="YYYY-MM-DD" />{err('inServiceOn')}</label>
+      <div className="col-span-full flex flex-wrap items-center gap-3">
+        <Button type="submit" disabled={save.isPending}>Save the changes</Button>
+        <Button type="button" tone="plain" onClick={onDone}>Cancel</Button>
+        {fieldErrors.map((f) => <span key={f.field} className="text-xs text-fail">{f.message}</span>)}
+        {save.error && !(save.error instanceof ApiError && save.error.fields.length) && <ErrorNote error={save.error} />}
+      </div>
+    </form>
+  );
+}
