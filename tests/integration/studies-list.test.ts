@@ -71,7 +71,7 @@ describe('the studies list', () => {
   });
 
   it('refuses a page position it did not give out, naming the field', async () => {
-    for (const after of ['not-a-position', Buffer.from(JSON.stringify(['K1', 'no-id'])).toString('base64url')]) {
+    for (const after of ['not-a-position', Buffer.from(JSON.stringify([['K1'], 'no-id'])).toString('base64url')]) {
       const body = await json(await designer.fetch(`/api/projects/${projectId}/studies?${new URLSearchParams({ after })}`), 422);
       expect(body.fields).toEqual([{ field: 'after', message: expect.stringContaining('start from the first page') }]);
     }

@@ -1,15 +1,17 @@
 import { AppError } from '../errors';
 
-// A keyset page position: the sort key (as text, so a timestamp keeps its microseconds) and the
+// A keyset page position: the sort keys (as text, so a timestamp keeps its microseconds) and the
 // row id of the last row shown. Opaque to the client; base64url so it travels in a query string.
 
-export const encodeCursor = (key: string, id: string) => Buffer.from(JSON.stringify([key, id])).toString('base64url');
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export const encodeCursor = (keys: string[], id: string) => Buffer.from(JSON.stringify([keys, id])).toString('base64url');
 
 /** The position, or a field error on `after` naming what the list is (e.g. "the studies list"). */
-export function decodeCursor(after: string, listName: string): [string, string] {
+export function decodeCursor(after: string, keyCount: number, listName: string): [string[], string] {
   try {
-    const [key, id] = JSON.parse(Buffer.from(after, 'base64url').toString('utf8'));
-    if (typeof key === 'string' && typeof id === 'string' && /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(id)) return [key, id];
+    const [keys, id] = JSON.parse(Buffer.from(after, 'base64url').toString('utf8'));
+    if (Array.isArray(keys) && keys.length === keyCount && keys.every((k) => typeof k === 'string') && typeof id === 'string' && UUID.test(id)) return [keys, id];
   } catch {
     // fall through to the error below
   }

@@ -1,7 +1,7 @@
 import { sql, type SQL } from 'drizzle-orm';
+import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
 import Papa from 'papaparse';
 import type { Database } from '../db/client';
-import { AppError } from '../errors';
 import type { RegisterQuery } from '../schemas/register.schema';
 import { addDays } from './due-dates';
 import { DUE_SOON_DAYS, registerStatuses, type RegisterStatus } from './register-status';
@@ -120,18 +120,6 @@ const toRow = (r: RawRow): RegisterRow => ({
   status: registerStatuses[r.rank],
 });
 
-const encodeCursor = (keys: string[], id: string) => Buffer.from(JSON.stringify([keys, id])).toString('base64url');
-
-function decodeCursor(after: string, keyCount: number): [string[], string] {
-  try {
-    const [keys, id] = JSON.parse(Buffer.from(after, 'base64url').toString('utf8'));
-    if (Array.isArray(keys) && keys.length === keyCount && keys.every((k) => typeof k === 'string') && typeof id === 'string' && /^[0-9a-f-]{36}$/i.test(id)) return [keys, id];
-  } catch {
-    // fall through to the error below
-  }
-  throw new AppError('InvalidInput', undefined, [{ field: 'after', message: 'This page position is not one the register gave out: start from the first page.' }]);
-}
-
 /**
  * A page of the register, keyset-paged: `after` is the position of the last row shown, so a
  * page costs the same at any depth and rows added meanwhile neither repeat nor go missing. One
@@ -147,7 +135,7 @@ export async function listRegister(db: Database, projectIds: string[], q: Regist
   const order = sql.join([...columns.map((c) => sql`${c} ${dir}`), sql`s.asset_id ${dir}`], sql`, `);
   let position = sql``;
   if (q.after) {
-    const [keys, id] = decodeCursor(q.after, cursorTypes[q.sort].length);
+    const [keys, id] = decodeCursor(q.after, cursorTypes[q.sort].length, 'the register');
     const typed = keys.map((k, i) => sql`${k}::${sql.raw(cursorTypes[q.sort][i])}`);
     position = sql`and (${sql.join(columns, sql`, `)}, s.asset_id) ${cmp} (${sql.join(typed, sql`, `)}, ${id}::uuid)`;
   }
