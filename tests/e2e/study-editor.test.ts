@@ -1,54 +1,15 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Dialog, Page } from 'playwright-core';
-import { browserAs, hydrated, screenshot, appUrl } from '../helpers/browser-session';
-import { DEMO, demoIds, json, send } from '../helpers/workflow-api';
-import { signedIn, type HttpSession } from '../helpers/http-session';
-import { DEMO_PASSWORD } from '../helpers/env';
-import { defaultBondingInputs } from '../../src/lib/studies/default-inputs';
+import { describe, expect, it } from 'vitest';
+import type { Dialog } from 'playwright-core';
+import { hydrated, screenshot, appUrl } from '../helpers/browser-session';
+import { json, send } from '../helpers/workflow-api';
+import { editorInBrowser } from '../helpers/editor-browser';
 
 // The study editor in Debian's Chromium: a whole two-circuit cross-bonded study with an internal
 // fault entered through the form and calculated; the unsaved-edits guard and the draft kept
 // over a reload; a pasted decimal comma; a split that keeps SVL and ECC references; an edit
 // conflict merged field by field. Every study here starts from the inputs a new study gets.
 
-const sessions: Array<{ page: Page; close: () => Promise<void>; errors: string[] }> = [];
-let designer: HttpSession;
-let ids: { projectId: string; limitSetId: string };
-let n = 0;
-
-async function newStudy(): Promise<string> {
-  const code = `ED${process.pid % 1000}-${Date.now() % 100000}-${n++}`;
-  const body = await json(await send(designer, 'POST', `/api/projects/${ids.projectId}/studies`, { code, title: `Editor test ${code}`, kind: 'bonding', limitSetId: ids.limitSetId, inputs: defaultBondingInputs(`Editor test ${code}`) }), 201);
-  return body.revision.id as string;
-}
-async function open(revisionId: string, page?: Page) {
-  const s = page ? null : await browserAs(DEMO.designer);
-  if (s) sessions.push(s);
-  const p = page ?? s!.page;
-  p.setDefaultTimeout(20_000);
-  await p.goto(`${appUrl}/revisions/${revisionId}`);
-  await hydrated(p);
-  await p.locator('form[aria-label="Study editor"][data-ready="true"]').waitFor();
-  return p;
-}
-const stored = async (revisionId: string) => (await json(await designer.fetch(`/api/revisions/${revisionId}`), 200)).revision;
-
-beforeAll(async () => {
-  designer = await signedIn(DEMO.designer, DEMO_PASSWORD);
-  ids = await demoIds(designer);
-});
-// A failed step leaves a picture and the error list behind, so the cause is visible without a rerun.
-afterEach(async (ctx) => {
-  const page = sessions[0]?.page;
-  if (!page || ctx.task.result?.state !== 'fail') return;
-  await screenshot(page, `editor-failed-${ctx.task.name.slice(0, 30).replace(/\W+/g, '-')}`);
-  const list = page.getByTestId('error-list');
-  if (await list.count()) console.log('error list:', await list.textContent());
-});
-afterAll(async () => {
-  for (const s of sessions) await s.close();
-  expect(sessions.flatMap((s) => s.errors)).toEqual([]);
-});
+const { sessions, newStudy, open, stored, http } = editorInBrowser('ED', 'Editor');
 
 describe('the study editor', () => {
   it('takes a two-circuit cross-bonded study with an internal fault entirely through the form, and calculates it', { timeout: 180_000 }, async () => {
@@ -198,7 +159,7 @@ describe('the study editor', () => {
     // Meanwhile someone saves a new title and another S2 length.
     const theirs = { ...(await stored(revisionId)).inputs, title: 'Their title' };
     theirs.sections[1].lengthM = 455;
-    await json(await send(designer, 'PUT', `/api/revisions/${revisionId}/inputs`, { version: 1, inputs: theirs }), 200);
+    await json(await send(http(), 'PUT', `/api/revisions/${revisionId}/inputs`, { version: 1, inputs: theirs }), 200);
     await page.getByRole('button', { name: 'Save inputs' }).click();
     const view = page.getByTestId('conflict-view');
     await view.waitFor();

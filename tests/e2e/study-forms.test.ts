@@ -1,14 +1,11 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { browserAs, hydrated, screenshot, appUrl } from '../helpers/browser-session';
-import { DEMO, demoIds, json, send } from '../helpers/workflow-api';
-import { signedIn, type HttpSession } from '../helpers/http-session';
-import { DEMO_PASSWORD } from '../helpers/env';
+import { screenshot } from '../helpers/browser-session';
 import { formatQuantity } from '../../src/lib/format';
 import { cableConstructionSchema } from '../../src/lib/schemas/bonding-study.schema';
 import { deriveCableParameters } from '../../src/lib/calc/cable/derive-cable';
 import { STARTING_CONSTRUCTION } from '../../src/components/editor/CableConstructionFields';
-import { defaultBondingInputs, defaultExposureInputs } from '../../src/lib/studies/default-inputs';
+import { editorInBrowser } from '../helpers/editor-browser';
 
 // The forms in Debian's Chromium, for what the JSON alone used to hold: an exposure study
 // entered through its own form (a bad field refused beside it, then saved, calculated and its
@@ -16,28 +13,7 @@ import { defaultBondingInputs, defaultExposureInputs } from '../../src/lib/studi
 // and bonding leads given by length, and the study's cable type entered as its construction,
 // each saved, calculated and told back by name.
 
-const sessions: Array<{ page: Page; close: () => Promise<void>; errors: string[] }> = [];
-let designer: HttpSession;
-let ids: { projectId: string; limitSetId: string };
-let n = 0;
-
-async function newStudy(kind: 'bonding' | 'exposure'): Promise<string> {
-  const code = `SF${process.pid % 1000}-${Date.now() % 100000}-${n++}`;
-  const title = `Form test ${code}`;
-  const inputs = kind === 'bonding' ? defaultBondingInputs(title) : defaultExposureInputs(title);
-  const body = await json(await send(designer, 'POST', `/api/projects/${ids.projectId}/studies`, { code, title, kind, limitSetId: ids.limitSetId, inputs }), 201);
-  return body.revision.id as string;
-}
-async function open(revisionId: string): Promise<Page> {
-  if (!sessions.length) sessions.push(await browserAs(DEMO.designer));
-  const page = sessions[0].page;
-  page.setDefaultTimeout(20_000);
-  await page.goto(`${appUrl}/revisions/${revisionId}`);
-  await hydrated(page);
-  await page.locator('form[aria-label="Study editor"][data-ready="true"]').waitFor();
-  return page;
-}
-const stored = async (revisionId: string) => (await json(await designer.fetch(`/api/revisions/${revisionId}`), 200)).revision;
+const { newStudy, open, stored } = editorInBrowser('SF', 'Form');
 async function fill(page: Page, label: string, value: string) {
   await page.getByLabel(label, { exact: true }).fill(value);
   await page.getByLabel(label, { exact: true }).blur();
@@ -48,22 +24,6 @@ async function saveAndCalculate(page: Page) {
   await page.getByRole('button', { name: 'Calculate' }).click();
   await page.getByTestId('calculated').waitFor();
 }
-
-beforeAll(async () => {
-  designer = await signedIn(DEMO.designer, DEMO_PASSWORD);
-  ids = await demoIds(designer);
-});
-afterEach(async (ctx) => {
-  const page = sessions[0]?.page;
-  if (!page || ctx.task.result?.state !== 'fail') return;
-  await screenshot(page, `forms-failed-${ctx.task.name.slice(0, 30).replace(/\W+/g, '-')}`);
-  const list = page.getByTestId('error-list');
-  if (await list.count()) console.log('error list:', await list.textContent());
-});
-afterAll(async () => {
-  for (const s of sessions) await s.close();
-  expect(sessions.flatMap((s) => s.errors)).toEqual([]);
-});
 
 describe('the study forms', () => {
   it('take an exposure study through its own form: a bad field refused beside it, then saved, calculated and shown', { timeout: 180_000 }, async () => {

@@ -1,6 +1,6 @@
 import { useFormContext } from 'react-hook-form';
 import { bondingLeadImpedance } from '../../lib/calc/bonding/bonding-lead';
-import { sig } from '../../lib/calc/cable/derive-cable';
+import DerivationTable from '../ui/DerivationTable';
 import { ErrorBeside, Num } from './fields';
 
 type Way = 'total' | 'length';
@@ -50,21 +50,7 @@ export default function BondingLeadFields() {
         <ErrorBeside name="bondingLeadLength" />
       </div>
       {derived && (
-        <table className="mt-2 w-full text-xs" data-testid="lead-derivation">
-          <caption className="py-1 text-left text-ink-soft">Lead impedance derived from the cross-section and material given for the leads' fault-current check</caption>
-          <thead className="text-left text-ink-soft"><tr><th>Figure</th><th>Value</th><th>Formula</th><th>Working</th><th>Source</th></tr></thead>
-          <tbody>
-            {derived.figures.map((f) => (
-              <tr key={f.key} className="border-t border-rule align-top">
-                <td className="py-0.5 pr-2">{f.label}</td>
-                <td className="pr-2 font-mono whitespace-nowrap">{sig(f.value)} {f.unit}</td>
-                <td className="pr-2 font-mono">{f.formula}</td>
-                <td className="pr-2 font-mono">{f.working}</td>
-                <td>{f.source}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+        <DerivationTable className="mt-2" figures={derived.figures} caption="Lead impedance derived from the cross-section and material given for the leads' fault-current check" testId="lead-derivation" />
       )}
     </div>
   );

@@ -1,26 +1,8 @@
-import { deriveCableParameters, sig } from '../../../lib/calc/cable/derive-cable';
+import { deriveCableParameters } from '../../../lib/calc/cable/derive-cable';
 import type { CableConstruction } from '../../../lib/schemas/bonding-study.schema';
+import DerivationTable from '../../ui/DerivationTable';
 
 /** Every figure derived from a construction, with its formula, the numbers put in, and its source. */
 export default function CableDerivation({ construction, caption }: { construction: CableConstruction; caption: string }) {
-  const { figures } = deriveCableParameters(construction);
-  return (
-    <table className="w-full text-xs" data-testid="cable-derivation">
-      <caption className="py-1 text-left text-ink-soft">{caption}</caption>
-      <thead className="text-left text-ink-soft">
-        <tr><th>Figure</th><th>Value</th><th>Formula</th><th>Working</th><th>Source</th></tr>
-      </thead>
-      <tbody>
-        {figures.map((f) => (
-          <tr key={f.key} className="border-t border-rule align-top">
-            <td className="py-0.5 pr-2">{f.label}</td>
-            <td className="pr-2 font-mono whitespace-nowrap">{sig(f.value)} {f.unit}</td>
-            <td className="pr-2 font-mono">{f.formula}</td>
-            <td className="pr-2 font-mono">{f.working}</td>
-            <td>{f.source}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
-  );
+  return <DerivationTable figures={deriveCableParameters(construction).figures} caption={caption} testId="cable-derivation" />;
 }
