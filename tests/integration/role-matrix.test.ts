@@ -171,6 +171,8 @@ const matrix: Array<{ route: string; allowed: Role[]; status: number; call: Call
   { route: 'GET /api/revisions/[revisionId]/explorations', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations` }) },
   { route: 'POST /api/revisions/[revisionId]/explorations', allowed: ['designer'], status: 202, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations`, body: { kind: 'placement', drumLengthM: 900 } }) },
   { route: 'GET /api/revisions/[revisionId]/explorations/[explorationId]', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}` }) },
+  // A finished run's stream says `end` at once and closes.
+  { route: 'GET /api/revisions/[revisionId]/explorations/[explorationId]/events', allowed: READERS, status: 200, call: (f) => ({ method: 'GET', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/events` }) },
   // A finished exploration: the designer passes the role check and is told there is nothing to cancel.
   { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/cancel', allowed: ['designer'], status: 422, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/cancel` }) },
   { route: 'POST /api/revisions/[revisionId]/explorations/[explorationId]/save', allowed: ['designer'], status: 200, call: (f) => ({ method: 'POST', path: `/api/revisions/${f.exploreDraft}/explorations/${f.explorationId}/save` }) },
