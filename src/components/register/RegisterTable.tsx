@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { PageBar, SortableHead, useKeysetPages } from '../ui/paged-table';
 import { registerCsvHref, registerQuery, type RegisterParams, type RegisterRow } from '../../lib/queries/register.queries';
 import { formatMarginPct } from '../../lib/format';
 import { withQueryClient } from '../ui/with-query-client';
@@ -32,11 +33,11 @@ function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string;
   const canAdd = !!projectId && (roles[projectId] ?? []).some((r) => r === 'designer' || r === 'approver');
   const [sorting, setSorting] = useState<SortingState>([{ id: 'code', desc: false }]);
   const [filters, setFilters] = useState<{ status?: string; kind?: string; search?: string }>({});
-  const [positions, setPositions] = useState<Array<string | undefined>>([undefined]);
+  const pages = useKeysetPages();
   const [selected, setSelected] = useState<string | undefined>(initialAsset);
   const [adding, setAdding] = useState(false);
   const base = { projectId, sort: (sorting[0]?.id ?? 'code') as RegisterParams['sort'], direction: sorting[0]?.desc ? 'desc' : 'asc', ...filters } as const;
-  const params: RegisterParams = { ...base, pageSize: 25, after: positions[positions.length - 1] };
+  const params: RegisterParams = { ...base, pageSize: 25, after: pages.after };
   const { data, isPending, isFetching, error } = useQuery(registerQuery(params));
   const table = useReactTable({
     data: data?.rows ?? [],
@@ -47,12 +48,12 @@ function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string;
     state: { sorting, columnVisibility: { projectCode: !projectId } },
     onSortingChange: (s) => {
       setSorting(s);
-      setPositions([undefined]);
+      pages.reset();
     },
   });
   const setFilter = (key: keyof typeof filters, value: string) => {
     setFilters((f) => ({ ...f, [key]: value || undefined }));
-    setPositions([undefined]);
+    pages.reset();
   };
 
   return (
@@ -87,21 +88,7 @@ function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string;
         <Empty>No asset matches.{canAdd && projectId ? ' Add one with "New asset".' : ''}</Empty>
       ) : (
         <table className="w-full rounded-lg border border-rule bg-panel text-sm" data-testid="register-table">
-          <thead className="bg-copper-light text-left">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => (
-                  <th key={h.id} className="px-3 py-2">
-                    {h.column.getCanSort() ? (
-                      <button type="button" className="font-semibold" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())} {({ asc: '▲', desc: '▼' } as Record<string, string>)[h.column.getIsSorted() as string] ?? ''}
-                      </button>
-                    ) : flexRender(h.column.columnDef.header, h.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
+          <SortableHead table={table} />
           <tbody>
             {table.getRowModel().rows.map((r) => (
               <tr key={r.id} data-asset={r.original.code} className={`cursor-pointer border-t border-rule hover:bg-copper-light/40 ${selected === r.original.id ? 'bg-copper-light/60' : ''}`} onClick={() => setSelected(r.original.id)}>
@@ -112,11 +99,7 @@ function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string;
         </table>
       )}
       {data && data.total > 0 && (
-        <div className="flex items-center gap-2 text-sm">
-          <Button tone="plain" onClick={() => setPositions((p) => p.slice(0, -1))} disabled={positions.length < 2}>Previous</Button>
-          <span>Page {positions.length} ({data.total} assets)</span>
-          <Button tone="plain" onClick={() => setPositions((p) => [...p, data.next ?? undefined])} disabled={!data.next}>Next</Button>
-        </div>
+        <PageBar pages={pages} total={data.total} noun="assets" next={data.next} />
       )}
       {selected && <AssetPanel assetId={selected} roles={roles} onClose={() => setSelected(undefined)} />}
     </div>

@@ -1,6 +1,7 @@
 import { lazy, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { PageBar, SortableHead, useKeysetPages } from '../ui/paged-table';
 import { studiesQuery, type StudyListParams, type StudyRow } from '../../lib/queries/studies.queries';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, StateBadge, formatDate } from '../ui/parts';
@@ -11,6 +12,7 @@ import { formatMarginPct } from '../../lib/format';
 // The form (with zod and react-hook-form) is fetched when someone starts a study, not with the list.
 const NewStudyForm = lazy(() => import('./NewStudyForm'));
 
+const PAGE_SIZE = 10;
 const column = createColumnHelper<StudyRow>();
 const columns = [
   column.accessor('code', { header: 'Code', cell: (c) => <a className="font-semibold text-copper hover:underline" href={`/revisions/${c.row.original.revisionId}`}>{c.getValue()}</a> }),
@@ -25,14 +27,12 @@ const columns = [
 
 function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: boolean }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'code', desc: false }]);
-  const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 10 });
-  // Keyset paging: the position each page starts after, learnt from the page before it.
-  const [starts, setStarts] = useState<Array<string | undefined>>([undefined]);
+  const pages = useKeysetPages();
   const [filters, setFilters] = useState<{ state?: string; kind?: string; search?: string }>({});
   const [creating, setCreating] = useState(false);
   const params: StudyListParams = {
-    after: starts[pagination.pageIndex],
-    pageSize: pagination.pageSize,
+    after: pages.after,
+    pageSize: PAGE_SIZE,
     sort: (sorting[0]?.id ?? 'code') as StudyListParams['sort'],
     direction: sorting[0]?.desc ? 'desc' : 'asc',
     ...filters,
@@ -42,29 +42,16 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
     data: data?.rows ?? [],
     columns,
     getCoreRowModel: getCoreRowModel(),
-    manualPagination: true,
     manualSorting: true,
-    rowCount: data?.total ?? 0,
-    state: { sorting, pagination },
+    state: { sorting },
     onSortingChange: (s) => {
       setSorting(s);
-      backToFirstPage();
+      pages.reset();
     },
-    onPaginationChange: setPagination,
   });
-  const backToFirstPage = () => {
-    setStarts([undefined]);
-    setPagination((p) => ({ ...p, pageIndex: 0 }));
-  };
-  const nextPage = () => {
-    if (!data?.next) return;
-    const next = data.next;
-    setStarts((s) => [...s.slice(0, pagination.pageIndex + 1), next]);
-    table.nextPage();
-  };
   const setFilter = (key: keyof typeof filters, value: string) => {
     setFilters((f) => ({ ...f, [key]: value || undefined }));
-    backToFirstPage();
+    pages.reset();
   };
 
   return (
@@ -101,21 +88,7 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
         <Empty>No study matches. {canCreate ? 'Start one with "New study".' : ''}</Empty>
       ) : (
         <table className="w-full rounded-lg border border-rule bg-panel text-sm" data-testid="studies-table">
-          <thead className="bg-copper-light text-left">
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id}>
-                {g.headers.map((h) => (
-                  <th key={h.id} className="px-3 py-2">
-                    {h.column.getCanSort() ? (
-                      <button type="button" className="font-semibold" onClick={h.column.getToggleSortingHandler()}>
-                        {flexRender(h.column.columnDef.header, h.getContext())} {({ asc: '▲', desc: '▼' } as Record<string, string>)[h.column.getIsSorted() as string] ?? ''}
-                      </button>
-                    ) : flexRender(h.column.columnDef.header, h.getContext())}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
+          <SortableHead table={table} />
           <tbody>
             {table.getRowModel().rows.map((r) => (
               <tr key={r.id} className="border-t border-rule">
@@ -126,11 +99,7 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
         </table>
       )}
       {data && data.total > 0 && (
-        <div className="flex items-center gap-2 text-sm">
-          <Button tone="plain" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>Previous</Button>
-          <span>Page {pagination.pageIndex + 1} of {Math.max(1, table.getPageCount())} ({data.total} studies)</span>
-          <Button tone="plain" onClick={nextPage} disabled={!data.next || isFetching}>Next</Button>
-        </div>
+        <PageBar pages={pages} total={data.total} noun="studies" next={data.next} pageCount={Math.max(1, Math.ceil(data.total / PAGE_SIZE))} busy={isFetching} />
       )}
     </div>
   );
