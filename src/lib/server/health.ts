@@ -12,27 +12,20 @@ export interface HealthReport {
 // SMTP answer is remembered for a few seconds: a mail server may wait for a reverse DNS lookup
 // before its greeting (about 100 ms here), which would make every health answer that slow.
 const SMTP_REMEMBERED_MS = 5000;
-let databaseInFlight: Promise<HealthReport['database']> | null = null;
-let smtpInFlight: Promise<HealthReport['mail']> | null = null;
-let smtpKnown: { at: number; result: HealthReport['mail'] } | null = null;
-
-function shared<T>(get: () => Promise<T> | null, set: (p: Promise<T> | null) => void, probe: () => Promise<T>): Promise<T> {
-  const running = get();
-  if (running) return running;
-  const started = probe().finally(() => set(null));
-  set(started);
-  return started;
-}
+type Probe = HealthReport['database'];
+let databaseInFlight: Promise<Probe> | null = null;
+let smtpInFlight: Promise<Probe> | null = null;
+let smtpKnown: { at: number; result: Probe } | null = null;
 
 /** Answers whether the database takes a query and the SMTP server greets, each within 2 s. */
 export async function checkHealth(db: Database, smtp: { host: string; port: number }): Promise<HealthReport> {
-  const database = shared(() => databaseInFlight, (p) => (databaseInFlight = p), () => probeDatabase(db));
+  const database = (databaseInFlight ??= probeDatabase(db).finally(() => (databaseInFlight = null)));
   const fresh = smtpKnown && Date.now() - smtpKnown.at < SMTP_REMEMBERED_MS ? smtpKnown.result : null;
-  const mail = fresh ?? shared(() => smtpInFlight, (p) => (smtpInFlight = p), async () => {
-    const result = await probeSmtp(smtp.host, smtp.port);
-    smtpKnown = { at: Date.now(), result };
-    return result;
-  });
+  const mail =
+    fresh ??
+    (smtpInFlight ??= probeSmtp(smtp.host, smtp.port)
+      .then((result) => (smtpKnown = { at: Date.now(), result }).result)
+      .finally(() => (smtpInFlight = null)));
   const [d, m] = await Promise.all([database, mail]);
   return { ok: d.ok && m.ok, database: d, mail: m };
 }
