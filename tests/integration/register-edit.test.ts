@@ -73,6 +73,12 @@ describe('editing an asset', () => {
 describe('study links', () => {
   it('edits a link with field errors for the wrong kind, and unlinks it', async () => {
     expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${circuit.id}/studies/${study.studyId}`, { siteEnd: 'start' }), 422)).fields[0].field).toBe('siteEnd');
+    // A circuit the study does not have, changing the link or making it: refused, naming the study's circuits.
+    for (const [method, path] of [['PATCH', `/api/assets/${circuit.id}/studies/${study.studyId}`], ['POST', `/api/assets/${circuit.id}/studies`]] as const) {
+      const refused = await json(await send(sessions.designer, method, path, { studyId: method === 'POST' ? study.studyId : undefined, studyCircuitId: 'C9' }), 422);
+      expect(refused.fields).toEqual([{ field: 'studyCircuitId', message: expect.stringMatching(/no circuit C9: its circuits are .*C1/) }]);
+    }
+    expect((await detail(circuit.id)).studies.map((l: { studyCircuitId: string }) => l.studyCircuitId)).toEqual(['C1']);
     expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${site.id}/studies/${study.studyId}`, { siteEnd: 'middle' }), 422)).fields[0].field).toBe('siteEnd');
     expect((await send(sessions.checker, 'PATCH', `/api/assets/${site.id}/studies/${study.studyId}`, { siteEnd: 'start' })).status).toBe(403);
     await json(await send(sessions.designer, 'PATCH', `/api/assets/${site.id}/studies/${study.studyId}`, { siteEnd: 'start' }), 200);

@@ -73,6 +73,13 @@ describe('register paging, sorting and filters', () => {
     expect(bad.fields.map((f: { field: string }) => f.field).sort()).toEqual(['pageSize', 'status']);
     const badCursor = await json(await sessions.designer.fetch('/api/register?after=nonsense'), 422);
     expect(badCursor.fields[0].field).toBe('after');
+    // A position given out for one sort, sent with another whose keys are numbers or dates: a
+    // field error, never the database's complaint about a cast.
+    const byCode = await json(await sessions.designer.fetch(`/api/register?search=${prefix}&pageSize=2&sort=code`), 200);
+    for (const sort of ['margin', 'nextDue', 'status', 'name']) {
+      const stale = await json(await sessions.designer.fetch(`/api/register?search=${prefix}&pageSize=2&sort=${sort}&after=${byCode.next}`), 422);
+      expect(stale.fields, sort).toEqual([{ field: 'after', message: expect.stringContaining('start from the first page') }]);
+    }
   });
 
   it('exports the filtered register as CSV with formula cells neutralised', async () => {

@@ -70,10 +70,24 @@ describe('the studies list', () => {
     expect(none).toMatchObject({ total: 0, rows: [], next: null });
   });
 
-  it('refuses a page position it did not give out, naming the field', async () => {
-    for (const after of ['not-a-position', Buffer.from(JSON.stringify([['K1'], 'no-id'])).toString('base64url')]) {
-      const body = await json(await designer.fetch(`/api/projects/${projectId}/studies?${new URLSearchParams({ after })}`), 422);
-      expect(body.fields).toEqual([{ field: 'after', message: expect.stringContaining('start from the first page') }]);
+  it('refuses a page position it did not give out, or gave out for another order, naming the field', async () => {
+    const position = (order: string, key: string, id = made[0].id) => Buffer.from(JSON.stringify([order, [key], id])).toString('base64url');
+    const byCode = await json(await designer.fetch(`/api/projects/${projectId}/studies?${new URLSearchParams({ pageSize: '5', sort: 'code', search: prefix })}`), 200);
+    const byUpdated = await json(await designer.fetch(`/api/projects/${projectId}/studies?${new URLSearchParams({ pageSize: '5', sort: 'updated', search: prefix })}`), 200);
+    const refused: Array<[string, Record<string, string>]> = [
+      ['not-a-position', {}],
+      [position('code asc', 'K1', 'no-id'), {}],
+      // Well formed, but no time: it must not reach the database as one.
+      [position('updated asc', 'not a date'), { sort: 'updated' }],
+      [position('updated asc', '2026-02-30 10:00:00+00'), { sort: 'updated' }],
+      // Stale: given out for another sort or direction.
+      [byCode.next, { sort: 'updated' }],
+      [byUpdated.next, { sort: 'code' }],
+      [byCode.next, { sort: 'code', direction: 'desc' }],
+    ];
+    for (const [after, order] of refused) {
+      const body = await json(await designer.fetch(`/api/projects/${projectId}/studies?${new URLSearchParams({ ...order, after })}`), 422);
+      expect(body.fields, after).toEqual([{ field: 'after', message: expect.stringContaining('start from the first page') }]);
     }
   });
 });

@@ -4,7 +4,7 @@ import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
 import type { Database } from '../db/client';
 import { AppError } from '../errors';
-import { type Asset, assetObligations, assets, obligationRecords, obligationTypes, siteSystemData, studies, studyAssets, studySummaries, users } from '../db/schema';
+import { type Asset, assetObligations, assets, obligationRecords, obligationTypes, revisions, siteSystemData, studies, studyAssets, studySummaries, users } from '../db/schema';
 import { inTransaction } from '../db/transaction';
 import { appendAudit } from '../audit/audit-log';
 import { assertId } from '../db/revisions.repo';
@@ -54,6 +54,21 @@ export async function createAsset(s: AppServices, actor: SessionUser, projectId:
   });
 }
 
+/** A circuit id given for a bonding study must name one of the circuits of its latest revision. */
+async function assertStudyCircuit(tx: Database, studyId: string, circuitId: string | null | undefined) {
+  if (!circuitId) return;
+  const [latest] = await tx
+    .select({ kind: studies.kind, inputs: revisions.inputs })
+    .from(revisions)
+    .innerJoin(studies, eq(studies.id, revisions.studyId))
+    .where(eq(revisions.studyId, studyId))
+    .orderBy(desc(revisions.number))
+    .limit(1);
+  if (latest?.kind !== 'bonding') return;
+  const ids = ((latest.inputs as { circuits?: Array<{ id: string }> }).circuits ?? []).map((c) => c.id);
+  if (!ids.includes(circuitId)) throw new AppError('InvalidInput', undefined, [{ field: 'studyCircuitId', message: `The study has no circuit ${circuitId}: its circuits are ${ids.join(', ') || 'none yet'}.` }]);
+}
+
 /** Records that a study covers an asset; both must belong to the same project. */
 export async function linkStudy(s: AppServices, actor: SessionUser, assetId: string, body: z.output<typeof studyLinkSchema>) {
   return inTransaction(s.pool, async (tx) => {
@@ -62,6 +77,7 @@ export async function linkStudy(s: AppServices, actor: SessionUser, assetId: str
     if (!study) throw new AppError('InvalidInput', undefined, [{ field: 'studyId', message: 'There is no study with this id in the asset\'s project.' }]);
     if (asset.kind === 'site' && body.studyCircuitId) throw new AppError('InvalidInput', undefined, [{ field: 'studyCircuitId', message: 'A circuit id applies to circuits, not sites.' }]);
     if (asset.kind === 'circuit' && body.siteEnd) throw new AppError('InvalidInput', undefined, [{ field: 'siteEnd', message: 'A route end applies to sites, not circuits.' }]);
+    await assertStudyCircuit(tx, study.id, body.studyCircuitId);
     const [link] = await tx
       .insert(studyAssets)
       .values({ studyId: study.id, assetId, studyCircuitId: body.studyCircuitId ?? null, siteEnd: body.siteEnd ?? null })
@@ -139,6 +155,7 @@ export async function editStudyLink(s: AppServices, actor: SessionUser, assetId:
     if (asset.kind === 'site' && body.studyCircuitId) throw new AppError('InvalidInput', undefined, [{ field: 'studyCircuitId', message: 'A circuit id applies to circuits, not sites.' }]);
     if (asset.kind === 'circuit' && body.siteEnd) throw new AppError('InvalidInput', undefined, [{ field: 'siteEnd', message: 'A route end applies to sites, not circuits.' }]);
     const { link: before, studyCode } = await loadLink(tx, assetId, studyId);
+    await assertStudyCircuit(tx, studyId, body.studyCircuitId);
     const set = { ...(body.studyCircuitId !== undefined ? { studyCircuitId: body.studyCircuitId } : {}), ...(body.siteEnd !== undefined ? { siteEnd: body.siteEnd } : {}) };
     const [after] = await tx.update(studyAssets).set(set).where(and(eq(studyAssets.assetId, assetId), eq(studyAssets.studyId, studyId))).returning();
     await appendAudit(tx, {

@@ -1,5 +1,5 @@
 import { sql, type SQL } from 'drizzle-orm';
-import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
+import { decodeCursor, encodeCursor, type KeyType } from '../db/keyset-cursor';
 import Papa from 'papaparse';
 import type { Database } from '../db/client';
 import type { RegisterQuery } from '../schemas/register.schema';
@@ -70,7 +70,7 @@ const sortColumns = (sort: RegisterQuery['sort']): SQL[] =>
   })[sort];
 
 /** How the cursor's text of each sort column is typed back. */
-const cursorTypes: Record<RegisterQuery['sort'], string[]> = { code: ['text'], name: ['text'], status: ['smallint', 'date'], nextDue: ['date'], margin: ['float8'] };
+const cursorTypes: Record<RegisterQuery['sort'], KeyType[]> = { code: ['text'], name: ['text'], status: ['smallint', 'date'], nextDue: ['date'], margin: ['float8'] };
 
 /** The conditions on the summaries (projects, kind, search, status). */
 function summaryFilter(projectIds: string[], q: Pick<RegisterQuery, 'kind' | 'search' | 'status'>, today: string, soon: string) {
@@ -135,7 +135,7 @@ export async function listRegister(db: Database, projectIds: string[], q: Regist
   const order = sql.join([...columns.map((c) => sql`${c} ${dir}`), sql`s.asset_id ${dir}`], sql`, `);
   let position = sql``;
   if (q.after) {
-    const [keys, id] = decodeCursor(q.after, cursorTypes[q.sort].length, 'the register');
+    const [keys, id] = decodeCursor(q.after, `${q.sort} ${q.direction}`, cursorTypes[q.sort], 'the register');
     const typed = keys.map((k, i) => sql`${k}::${sql.raw(cursorTypes[q.sort][i])}`);
     position = sql`and (${sql.join(columns, sql`, `)}, s.asset_id) ${cmp} (${sql.join(typed, sql`, `)}, ${id}::uuid)`;
   }
@@ -159,7 +159,7 @@ export async function listRegister(db: Database, projectIds: string[], q: Regist
   const more = raw.length > q.pageSize;
   const rows = raw.slice(0, q.pageSize);
   const last = rows[rows.length - 1];
-  return { total: (count.rows[0] as { total: number }).total, rows: rows.map(toRow), next: more && last ? encodeCursor(last.sort_key, last.id) : null };
+  return { total: (count.rows[0] as { total: number }).total, rows: rows.map(toRow), next: more && last ? encodeCursor(`${q.sort} ${q.direction}`, last.sort_key, last.id) : null };
 }
 
 /** Counts per status of every asset of the projects, per project. */

@@ -186,7 +186,7 @@ export async function listStudies(db: Database, projectId: string, q: StudyListQ
   const order = q.direction === 'asc' ? asc : desc;
   let position: SQL | undefined;
   if (q.after) {
-    const [[key], id] = decodeCursor(q.after, 1, 'the studies list');
+    const [[key], id] = decodeCursor(q.after, `${q.sort} ${q.direction}`, [q.sort === 'updated' ? 'timestamptz' : 'text'], 'the studies list');
     const typedKey = q.sort === 'updated' ? sql`${key}::timestamptz` : sql`${key}::text`;
     position = q.direction === 'asc' ? sql`(${sortColumn}, ${s.studyId}) > (${typedKey}, ${id}::uuid)` : sql`(${sortColumn}, ${s.studyId}) < (${typedKey}, ${id}::uuid)`;
   }
@@ -214,7 +214,7 @@ export async function listStudies(db: Database, projectId: string, q: StudyListQ
   const more = found.length > q.pageSize;
   const rows = found.slice(0, q.pageSize).map(({ sortKey: _key, ...row }) => row);
   const last = found[rows.length - 1];
-  return { total, pageSize: q.pageSize, rows, next: more && last ? encodeCursor([last.sortKey], last.id) : null };
+  return { total, pageSize: q.pageSize, rows, next: more && last ? encodeCursor(`${q.sort} ${q.direction}`, [last.sortKey], last.id) : null };
 }
 
 /** A search term with LIKE's own wildcards taken literally. */
