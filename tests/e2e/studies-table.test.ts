@@ -31,7 +31,7 @@ afterAll(async () => {
 });
 
 describe('the studies table', () => {
-  it('pages forward and back in the chosen order, and starts again at page 1 when the sort changes', { timeout: 90_000 }, async () => {
+  it('pages forward and back in the chosen order, starts again at page 1 when the sort changes, and never goes unsorted', { timeout: 90_000 }, async () => {
     const { page } = session;
     page.setDefaultTimeout(20_000);
     await page.goto(`${appUrl}/projects/${projectId}`);
@@ -56,5 +56,9 @@ describe('the studies table', () => {
     await page.getByRole('button', { name: /^Code/ }).click();
     await page.getByText(`Page 1 of 2 (${COUNT} studies)`).waitFor();
     await expect.poll(shown).toEqual([...codes].reverse().slice(0, 10));
+    // Clicked again, the order turns round; it never goes unsorted, and the header says which way.
+    await page.getByRole('button', { name: /^Code/ }).click();
+    await expect.poll(shown).toEqual(codes.slice(0, 10));
+    expect(await page.getByRole('button', { name: /^Code/ }).textContent()).toContain('▲');
   });
 });

@@ -45,6 +45,8 @@ function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string;
     getCoreRowModel: getCoreRowModel(),
     manualPagination: true,
     manualSorting: true,
+    // The server always sorts by something: a third click turns the order round, never off.
+    enableSortingRemoval: false,
     state: { sorting, columnVisibility: { projectCode: !projectId } },
     onSortingChange: (s) => {
       setSorting(s);

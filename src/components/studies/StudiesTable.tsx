@@ -43,6 +43,8 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
     columns,
     getCoreRowModel: getCoreRowModel(),
     manualSorting: true,
+    // The server always sorts by something: a third click turns the order round, never off.
+    enableSortingRemoval: false,
     state: { sorting },
     onSortingChange: (s) => {
       setSorting(s);
