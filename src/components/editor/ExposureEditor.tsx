@@ -3,7 +3,7 @@ import { exposureStudySchema } from '../../lib/schemas/exposure-study.schema';
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import { Button } from '../ui/parts';
 import StudyForm from './StudyForm';
-import { Choice, ErrorBeside, Num, Text, box } from './fields';
+import { Choice, ErrorBeside, Num, StudyBasics, Text, box } from './fields';
 import { nextId } from './LayoutsSection';
 
 /** The form of an exposure study: the inducing conductors, the parallel metalwork, its earthing and screening, the cases and the touch-voltage ground. */
@@ -14,11 +14,7 @@ export default function ExposureEditor({ detail, readOnly }: { detail: RevisionD
         <>
           <section className={box} aria-label="General">
             <h3 className="mb-2 font-semibold">General</h3>
-            <div className="flex flex-wrap gap-3">
-              <Text name="title" label="Title" width="w-80" />
-              <Choice name="frequencyHz" label="Frequency" numeric options={[[50, '50 Hz'], [60, '60 Hz']]} />
-              <Num name="soilResistivityOhmM" label="Soil resistivity (Ω·m)" />
-            </div>
+            <StudyBasics />
           </section>
           <Sources />
           <Metalwork />

@@ -1,5 +1,5 @@
 import { useFormContext } from 'react-hook-form';
-import { Choice, Num, Text, box } from './fields';
+import { Choice, Num, StudyBasics, box } from './fields';
 import BondingLeadFields from './BondingLeadFields';
 
 /** Study-wide data: frequency, soil, electrodes, bonding leads, touch-voltage ground, adiabatic temperatures. */
@@ -10,11 +10,7 @@ export default function GeneralSection() {
   return (
     <section className={box} aria-label="General">
       <h3 className="mb-2 font-semibold">General</h3>
-      <div className="flex flex-wrap gap-3">
-        <Text name="title" label="Title" width="w-80" />
-        <Choice name="frequencyHz" label="Frequency" numeric options={[[50, '50 Hz'], [60, '60 Hz']]} />
-        <Num name="soilResistivityOhmM" label="Soil resistivity (Ω·m)" />
-      </div>
+      <StudyBasics />
       <h4 className="mt-3 text-sm font-semibold">Electrodes (study-wide; per joint on the route strip below)</h4>
       <div className="flex flex-wrap gap-3">
         <Num name="earthing.routeStartOhm" label="Earth at route start (Ω)" />

@@ -76,3 +76,14 @@ export function Check({ name, label }: { name: string; label: string }) {
 }
 
 export const box = 'rounded-lg border border-rule bg-panel p-3';
+
+/** Title, frequency and soil resistivity: the first row of every study form. */
+export function StudyBasics() {
+  return (
+    <div className="flex flex-wrap gap-3">
+      <Text name="title" label="Title" width="w-80" />
+      <Choice name="frequencyHz" label="Frequency" numeric options={[[50, '50 Hz'], [60, '60 Hz']]} />
+      <Num name="soilResistivityOhmM" label="Soil resistivity (Ω·m)" />
+    </div>
+  );
+}

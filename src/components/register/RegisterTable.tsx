@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { PageBar, SortableHead, useKeysetPages } from '../ui/paged-table';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { PageBar, SortableHead, useServerList } from '../ui/paged-table';
 import { registerCsvHref, registerQuery, type RegisterParams, type RegisterRow } from '../../lib/queries/register.queries';
 import { formatMarginPct } from '../../lib/format';
 import { withQueryClient } from '../ui/with-query-client';
@@ -31,12 +31,10 @@ const columns = [
  */
 function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string; roles: Record<string, string[]>; initialAsset?: string }) {
   const canAdd = !!projectId && (roles[projectId] ?? []).some((r) => r === 'designer' || r === 'approver');
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'code', desc: false }]);
-  const [filters, setFilters] = useState<{ status?: string; kind?: string; search?: string }>({});
-  const pages = useKeysetPages();
+  const { sorting, onSortingChange, filters, setFilter, pages, sort, direction } = useServerList<{ status?: string; kind?: string; search?: string }>('code');
   const [selected, setSelected] = useState<string | undefined>(initialAsset);
   const [adding, setAdding] = useState(false);
-  const base = { projectId, sort: (sorting[0]?.id ?? 'code') as RegisterParams['sort'], direction: sorting[0]?.desc ? 'desc' : 'asc', ...filters } as const;
+  const base = { projectId, sort: sort as RegisterParams['sort'], direction, ...filters } as const;
   const params: RegisterParams = { ...base, pageSize: 25, after: pages.after };
   const { data, isPending, isFetching, error } = useQuery(registerQuery(params));
   const table = useReactTable({
@@ -48,15 +46,8 @@ function RegisterTable({ projectId, roles, initialAsset }: { projectId?: string;
     // The server always sorts by something: a third click turns the order round, never off.
     enableSortingRemoval: false,
     state: { sorting, columnVisibility: { projectCode: !projectId } },
-    onSortingChange: (s) => {
-      setSorting(s);
-      pages.reset();
-    },
+    onSortingChange,
   });
-  const setFilter = (key: keyof typeof filters, value: string) => {
-    setFilters((f) => ({ ...f, [key]: value || undefined }));
-    pages.reset();
-  };
 
   return (
     <div className="space-y-4">

@@ -1,7 +1,7 @@
 import { lazy, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
-import { PageBar, SortableHead, useKeysetPages } from '../ui/paged-table';
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from '@tanstack/react-table';
+import { PageBar, SortableHead, useServerList } from '../ui/paged-table';
 import { studiesQuery, type StudyListParams, type StudyRow } from '../../lib/queries/studies.queries';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, Empty, ErrorNote, StateBadge, formatDate } from '../ui/parts';
@@ -26,15 +26,13 @@ const columns = [
 ];
 
 function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: boolean }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: 'code', desc: false }]);
-  const pages = useKeysetPages();
-  const [filters, setFilters] = useState<{ state?: string; kind?: string; search?: string }>({});
+  const { sorting, onSortingChange, filters, setFilter, pages, sort, direction } = useServerList<{ state?: string; kind?: string; search?: string }>('code');
   const [creating, setCreating] = useState(false);
   const params: StudyListParams = {
     after: pages.after,
     pageSize: PAGE_SIZE,
-    sort: (sorting[0]?.id ?? 'code') as StudyListParams['sort'],
-    direction: sorting[0]?.desc ? 'desc' : 'asc',
+    sort: sort as StudyListParams['sort'],
+    direction,
     ...filters,
   };
   const { data, isPending, isFetching, error } = useQuery(studiesQuery(projectId, params));
@@ -46,15 +44,8 @@ function StudiesTable({ projectId, canCreate }: { projectId: string; canCreate: 
     // The server always sorts by something: a third click turns the order round, never off.
     enableSortingRemoval: false,
     state: { sorting },
-    onSortingChange: (s) => {
-      setSorting(s);
-      pages.reset();
-    },
+    onSortingChange,
   });
-  const setFilter = (key: keyof typeof filters, value: string) => {
-    setFilters((f) => ({ ...f, [key]: value || undefined }));
-    pages.reset();
-  };
 
   return (
     <div className="space-y-3">

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { flexRender, type Table } from '@tanstack/react-table';
+import { flexRender, type OnChangeFn, type SortingState, type Table } from '@tanstack/react-table';
 import { Button } from './parts';
 
 /**
@@ -17,6 +17,32 @@ export function useKeysetPages() {
       if (position) setPositions((p) => [...p, position]);
     },
     previous: () => setPositions((p) => (p.length > 1 ? p.slice(0, -1) : p)),
+  };
+}
+
+/**
+ * What a server-sorted, filtered, keyset-paged table keeps: its sort, its filters and its page
+ * positions. A new sort or filter starts again from the first page.
+ */
+export function useServerList<F extends Record<string, string | undefined>>(initialSort: string) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: initialSort, desc: false }]);
+  const [filters, setFilters] = useState<F>({} as F);
+  const pages = useKeysetPages();
+  const onSortingChange: OnChangeFn<SortingState> = (s) => {
+    setSorting(s);
+    pages.reset();
+  };
+  return {
+    sorting,
+    onSortingChange,
+    filters,
+    pages,
+    sort: sorting[0]?.id ?? initialSort,
+    direction: (sorting[0]?.desc ? 'desc' : 'asc') as 'asc' | 'desc',
+    setFilter: (key: keyof F, value: string) => {
+      setFilters((f) => ({ ...f, [key]: value || undefined }));
+      pages.reset();
+    },
   };
 }
 
