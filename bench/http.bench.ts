@@ -74,7 +74,11 @@ async function seedAuditEvents(db: pg.Client) {
   console.log(`seeded ${AUDIT_EVENTS} audit events in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
 }
 
+/** BENCH_ROUTES=detail,calculate runs only the routes whose label contains one of the words. */
+const only = process.env.BENCH_ROUTES?.split(',').filter(Boolean);
+
 async function load(label: string, cookie: string, requests: autocannon.Request[], method = 'GET') {
+  if (only && !only.some((word) => label.includes(word))) return;
   const times: number[] = [];
   const statuses = new Map<number, number>();
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
@@ -97,11 +101,15 @@ async function pageJsGzip(path: string, cookie: string): Promise<number> {
 
 const db = new pg.Client({ connectionString: process.env.DATABASE_URL });
 await db.connect();
-const projectId = await seedStudies(db);
-await seedAuditEvents(db);
+// A rerun against a held server (BENCH_HOLD=1) finds the studies already there.
+const { rows: [seeded] } = await db.query(`select project_id from studies where code = 'K00001'`);
+const projectId: string = seeded?.project_id ?? (await seedStudies(db));
+if (!seeded) await seedAuditEvents(db);
 const { rows: [someRevision] } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code = 'K05000'`);
 // Twenty designers calculating their own studies: the requests cycle over 200 revisions.
 const { rows: toCalculate } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code like 'K%' order by s.code limit 200`);
+// Others, edited before each calculation (20 designers, 10 studies each).
+const { rows: toEdit } = await db.query(`select r.id, r.inputs, r.version from revisions r join studies s on s.id = r.study_id where s.code like 'K%' order by s.code desc limit 200`);
 await db.end();
 
 const designer = await signedIn('designer@sheathwise.example', DEMO_PASSWORD);
@@ -130,43 +138,82 @@ await load('revision detail', cookie, [{ method: 'GET', path: `/api/revisions/${
 await load('route profile of a case (recomputed)', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}/profile?caseId=LOAD` }]);
 await load('health', cookie, [{ method: 'GET', path: '/api/health' }]);
 await load('calculate (reference study, 200 revisions)', cookie, toCalculate.map((r: { id: string }) => ({ method: 'POST' as const, path: `/api/revisions/${r.id}/calculate` })));
-// One more calculation, for the incremental verification below to have new events.
-const calculateOnce = async () => (await fetch(`${base}/api/revisions/${someRevision.id}/calculate`, { method: 'POST', headers: { cookie, origin: base } })).arrayBuffer();
 
-console.log('\nfirst-load JavaScript, gzipped:');
-// The audit trail is the auditor's screen; the others the designer's.
-const auditorCookie = (await signedIn('auditor@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
-for (const [page, who] of [['/signin', cookie], ['/', cookie], [`/projects/${projectId}`, cookie], [`/revisions/${someRevision.id}`, cookie], ['/audit', auditorCookie]]) {
-  console.log(`  ${page.padEnd(60)} ${(((await pageJsGzip(page, who)) / 1024)).toFixed(0).padStart(5)} kB`);
-}
-
-// The audit chain, as the administrator (every event): the whole chain, then from the checkpoint
-// that run left, after a few more events.
-const adminCookie = (await signedIn('admin@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
-const timedVerify = async (mode: string) => {
+/** Saves a changed title into a revision's inputs (a new inputs hash), then times its calculation. */
+const versions = new Map<string, number>(toEdit.map((r: { id: string; version: number }) => [r.id, r.version]));
+let edits = 0;
+async function editAndCalculate(revision: { id: string; inputs: Record<string, unknown> }): Promise<{ ms: number; status: number }> {
+  const inputs = { ...revision.inputs, title: `${String(revision.inputs.title)} (edit ${++edits})` };
+  const put = await fetch(`${base}/api/revisions/${revision.id}/inputs`, { method: 'PUT', headers: { cookie, origin: base, 'content-type': 'application/json' }, body: JSON.stringify({ version: versions.get(revision.id), inputs }) });
+  if (put.status !== 200) throw new Error(`saving inputs: ${put.status} ${await put.text()}`);
+  versions.set(revision.id, ((await put.json()) as { version: number }).version);
   const t0 = performance.now();
-  const report = await (await fetch(`${base}/api/audit/verify?mode=${mode}`, { headers: { cookie: adminCookie } })).json();
-  return { ms: performance.now() - t0, report };
-};
-console.log(`\naudit verification (${AUDIT_EVENTS} generated events plus the demo's):`);
-for (let i = 0; i < 2; i++) {
-  const full = await timedVerify('full');
-  console.log(`  full:        ${full.ms.toFixed(0).padStart(6)} ms  ok=${full.report.ok} checked=${full.report.checked}`);
+  const res = await fetch(`${base}/api/revisions/${revision.id}/calculate`, { method: 'POST', headers: { cookie, origin: base } });
+  const body = (await res.json()) as { version: number };
+  if (res.ok) versions.set(revision.id, body.version);
+  return { ms: performance.now() - t0, status: res.status };
 }
-await calculateOnce();
-const incremental = await timedVerify('incremental');
-console.log(`  incremental: ${incremental.ms.toFixed(0).padStart(6)} ms  ok=${incremental.report.ok} checked=${incremental.report.checked} (events since the checkpoint)`);
+if (!only || only.some((word) => 'calculate after an edit'.includes(word))) {
+  // autocannon cannot chain a save and a calculation: 20 loops of fetch, for as long as the others.
+  const times: number[] = [];
+  const statuses = new Map<number, number>();
+  const until = performance.now() + SECONDS * 1000;
+  await Promise.all(
+    Array.from({ length: CONNECTIONS }, async (_, c) => {
+      const mine = toEdit.filter((_r: unknown, i: number) => i % CONNECTIONS === c);
+      for (let n = 0; performance.now() < until; n++) {
+        const { ms, status } = await editAndCalculate(mine[n % mine.length]);
+        times.push(ms);
+        statuses.set(status, (statuses.get(status) ?? 0) + 1);
+      }
+    }),
+  );
+  times.sort((a, b) => a - b);
+  const codes = [...statuses].map(([st, k]) => `${st}×${k}`).join(' ');
+  console.log(`${'calculate after an edit (timed: calculate only)'.padEnd(44)} p50 ${percentile(times, 50).toFixed(0).padStart(5)} ms  p95 ${percentile(times, 95).toFixed(0).padStart(5)} ms  p99 ${percentile(times, 99).toFixed(0).padStart(5)} ms  ${(times.length / SECONDS).toFixed(0).padStart(5)} calc/s  [${codes}]`);
+}
+if (!only) await extras();
 
-const large = crossBondedRoute({ circuits: 2, majorSections: 30, withEcc: true });
-const full = JSON.stringify(calculateStudy(large));
-const compact = JSON.stringify(compactResults(calculateStudy(large)));
-const sizeDb = new pg.Client({ connectionString: process.env.DATABASE_URL });
-await sizeDb.connect();
-await sizeDb.query('create temp table stored_size (r jsonb)');
-await sizeDb.query('insert into stored_size values ($1::jsonb), ($2::jsonb)', [full, compact]);
-const { rows: onDisk } = await sizeDb.query('select pg_column_size(r) as bytes from stored_size');
-await sizeDb.end();
-const kB = (n: number) => `${(n / 1024).toFixed(0)} kB`;
-console.log('\nresults stored per revision, large route (90 minor sections, 2 circuits):');
-console.log(`  before (with route profiles): ${kB(full.length)} JSON, ${kB(gzipSync(full).length)} gzipped, ${kB(onDisk[0].bytes)} in PostgreSQL (jsonb, TOAST-compressed)`);
-console.log(`  now (profiles recomputed on request): ${kB(compact.length)} JSON, ${kB(gzipSync(compact).length)} gzipped, ${kB(onDisk[1].bytes)} in PostgreSQL`);
+/** Page sizes, audit verification and stored results size: everything but the route loads. */
+async function extras() {
+  // One more edit and calculation, for the incremental verification below to have new events.
+  const calculateOnce = () => editAndCalculate(toEdit[0]);
+
+  console.log('\nfirst-load JavaScript, gzipped:');
+  // The audit trail is the auditor's screen; the others the designer's.
+  const auditorCookie = (await signedIn('auditor@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
+  for (const [page, who] of [['/signin', cookie], ['/', cookie], [`/projects/${projectId}`, cookie], [`/revisions/${someRevision.id}`, cookie], ['/audit', auditorCookie]]) {
+    console.log(`  ${page.padEnd(60)} ${(((await pageJsGzip(page, who)) / 1024)).toFixed(0).padStart(5)} kB`);
+  }
+
+  // The audit chain, as the administrator (every event): the whole chain, then from the checkpoint
+  // that run left, after a few more events.
+  const adminCookie = (await signedIn('admin@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
+  const timedVerify = async (mode: string) => {
+    const t0 = performance.now();
+    const report = await (await fetch(`${base}/api/audit/verify?mode=${mode}`, { headers: { cookie: adminCookie } })).json();
+    return { ms: performance.now() - t0, report };
+  };
+  console.log(`\naudit verification (${AUDIT_EVENTS} generated events plus the demo's):`);
+  for (let i = 0; i < 2; i++) {
+    const full = await timedVerify('full');
+    console.log(`  full:        ${full.ms.toFixed(0).padStart(6)} ms  ok=${full.report.ok} checked=${full.report.checked}`);
+  }
+  await calculateOnce();
+  const incremental = await timedVerify('incremental');
+  console.log(`  incremental: ${incremental.ms.toFixed(0).padStart(6)} ms  ok=${incremental.report.ok} checked=${incremental.report.checked} (events since the checkpoint)`);
+
+  const large = crossBondedRoute({ circuits: 2, majorSections: 30, withEcc: true });
+  const full = JSON.stringify(calculateStudy(large));
+  const compact = JSON.stringify(compactResults(calculateStudy(large)));
+  const sizeDb = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await sizeDb.connect();
+  await sizeDb.query('create temp table stored_size (r jsonb)');
+  await sizeDb.query('insert into stored_size values ($1::jsonb), ($2::jsonb)', [full, compact]);
+  const { rows: onDisk } = await sizeDb.query('select pg_column_size(r) as bytes from stored_size');
+  await sizeDb.end();
+  const kB = (n: number) => `${(n / 1024).toFixed(0)} kB`;
+  console.log('\nresults stored per revision, large route (90 minor sections, 2 circuits):');
+  console.log(`  before (with route profiles): ${kB(full.length)} JSON, ${kB(gzipSync(full).length)} gzipped, ${kB(onDisk[0].bytes)} in PostgreSQL (jsonb, TOAST-compressed)`);
+  console.log(`  now (profiles recomputed on request): ${kB(compact.length)} JSON, ${kB(gzipSync(compact).length)} gzipped, ${kB(onDisk[1].bytes)} in PostgreSQL`);
+}

@@ -2,6 +2,7 @@
 # npm run bench:http / bench:register: the built server on a throwaway database (the demo
 # data), then the named benchmark (bench/http.bench.ts seeds 10,000 studies, bench/register.bench.ts
 # 5,000 register assets) loads it with autocannon on loopback. Prints figures; asserts nothing.
+# BENCH_HOLD=1 keeps the services up afterwards, to rerun the benchmark (it seeds only once).
 # Usage: scripts/bench-server.sh bench/<name>.bench.ts
 set -euo pipefail
 BENCH="${1:?name the benchmark, e.g. bench/http.bench.ts}"
@@ -28,3 +29,8 @@ start_server
 export APP_URL="http://127.0.0.1:$SHEATHWISE_PORT"
 cd "$ROOT"
 node_modules/.bin/tsx "$BENCH"
+if [ -n "${BENCH_HOLD:-}" ]; then
+  # Keeps the seeded server up for more runs or a profiler; Ctrl-C stops everything.
+  log "holding; rerun with: APP_URL=$APP_URL DATABASE_URL=$DATABASE_URL MAILDEV_WEB_PORT=$MAILDEV_WEB_PORT node_modules/.bin/tsx $BENCH"
+  sleep infinity & wait $!
+fi

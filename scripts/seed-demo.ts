@@ -14,7 +14,7 @@ import { publishLimitSetVersion } from '../src/lib/admin/limit-sets.service';
 import { calculateRevision, createStudy, startNewRevision } from '../src/lib/studies/studies.service';
 import { updateChecklistItem } from '../src/lib/studies/revision-items.service';
 import { applyStep } from '../src/lib/workflow/revision-workflow.server';
-import { revisionDetail } from '../src/lib/db/revisions.repo';
+import { loadCalculationScope, revisionDetail } from '../src/lib/db/revisions.repo';
 import { demoManualItems } from './demo-manual-items';
 import { demoCableTypes } from './demo-cable-types';
 import { addCableType } from '../src/lib/admin/cable-types.service';
@@ -81,7 +81,7 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
     applyStep(s, who, revisionId, { step: name, version: await version(revisionId), reason, password: DEMO_PASSWORD }, signing);
   const draftCalculated = async (code: string, title: string, kind: 'bonding' | 'exposure', file: string) => {
     const { revision } = await createStudy(s, designer, project.id, { code, title, kind, limitSetId: limitSet.id, inputs: fixture(file) });
-    await calculateRevision(s, designer, revision.id);
+    await calculateRevision(s, designer, await loadCalculationScope(db, revision.id));
     await answerAll(revision.id);
     return revision.id;
   };
@@ -92,7 +92,7 @@ export async function seedDemo(db: Database, pool: pg.Pool): Promise<boolean> {
   // The seed runs without the job queue, so it renders the issued records itself.
   await storeIssuedRecord(s, main1);
   const main2 = (await startNewRevision(s, designer, (await revisionDetail(db, main1)).study.id)).id;
-  await calculateRevision(s, designer, main2);
+  await calculateRevision(s, designer, await loadCalculationScope(db, main2));
   await answerAll(main2);
   for (const [who, name] of [[designer, 'submit'], [checker, 'startCheck'], [checker, 'pass'], [approver, 'issue']] as const) await step(who, main2, name);
   await storeIssuedRecord(s, main2);

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
 import { and, eq, sql } from 'drizzle-orm';
 import { createDatabase } from '../../src/lib/db/client';
 import { auditEvents, recomputations, revisions } from '../../src/lib/db/schema';
@@ -7,6 +8,7 @@ import { canonicalJson } from '../../src/lib/canonical-json';
 import { compactResults } from '../../src/lib/studies/stored-results';
 import { bondingStudySchema } from '../../src/lib/schemas/bonding-study.schema';
 import { crossBondedRoute } from '../../bench/reference-routes';
+import { demoManualItems } from '../../scripts/demo-manual-items';
 import { testEnv } from '../helpers/env';
 import type { HttpSession } from '../helpers/http-session';
 import { type DemoRole, demoIds, demoSessions, fixtureInputs, json, prepareForSubmit, readyDraft, send, step } from '../helpers/workflow-api';
@@ -121,11 +123,28 @@ describe('calculation off the request thread', () => {
     await json(await send(sessions.designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200);
     const [restored] = await db.select({ results: revisions.results }).from(revisions).where(eq(revisions.id, revisionId));
     expect(canonicalJson(restored.results)).toBe(canonicalJson(revision.results));
-    // With untouched results, a calculation with unchanged inputs keeps them (the limit set is applied again).
-    await json(await send(sessions.designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200);
-    const events = await db.select({ detail: auditEvents.detail }).from(auditEvents).where(and(eq(auditEvents.revisionId, revisionId), eq(auditEvents.type, 'revision.calculated'))).orderBy(sql`${auditEvents.id} desc`).limit(2);
+    const calculatedEvents = () => db.select({ detail: auditEvents.detail }).from(auditEvents).where(and(eq(auditEvents.revisionId, revisionId), eq(auditEvents.type, 'revision.calculated'))).orderBy(sql`${auditEvents.id} desc`);
+    const [afterFresh] = await db.select({ version: revisions.version, limitSetVersionId: revisions.limitSetVersionId }).from(revisions).where(eq(revisions.id, revisionId));
+    const eventsBefore = (await calculatedEvents()).length;
+    // Unchanged inputs, engine and limit set, and intact results: nothing would change, so nothing is written.
+    expect(await json(await send(sessions.designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200)).toMatchObject({ unchanged: true, version: afterFresh.version, inputsHash: revision.inputsHash });
+    expect(await db.select({ version: revisions.version }).from(revisions).where(eq(revisions.id, revisionId))).toEqual([{ version: afterFresh.version }]);
+    expect(await calculatedEvents()).toHaveLength(eventsBefore);
+    // A new version of the limit set: the stored results are kept and the limit set is applied again.
+    const { limitSetId } = await demoIds(sessions.designer);
+    const published = await json(await send(sessions.admin, 'POST', `/api/admin/limit-sets/${limitSetId}/versions`, { limits: JSON.parse(readFileSync('tests/fixtures/limit-sets/demo-owner.json', 'utf8')).limits, manualItems: demoManualItems, checkTolerancePct: 2 }), 201);
+    expect(await json(await send(sessions.designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200)).toMatchObject({ unchanged: false, version: afterFresh.version + 1 });
+    const events = await calculatedEvents();
+    expect(events).toHaveLength(eventsBefore + 1);
     expect(events[1].detail).not.toHaveProperty('resultsReused');
-    expect(events[0].detail).toMatchObject({ resultsReused: true, inputsHash: revision.inputsHash });
+    expect(events[0].detail).toMatchObject({ resultsReused: true, inputsHash: revision.inputsHash, limitSetVersion: published.version });
+    const [reapplied] = await db.select({ limitSetVersionId: revisions.limitSetVersionId }).from(revisions).where(eq(revisions.id, revisionId));
+    expect(reapplied.limitSetVersionId).not.toBe(afterFresh.limitSetVersionId);
+    // Stored figures altered behind the application's back are never taken as up to date.
+    await db.execute(sql`update revisions set results = jsonb_set(results, '{cases,0,points,0,maxV}', '12345.6') where id = ${revisionId}`);
+    expect(await json(await send(sessions.designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200)).toMatchObject({ unchanged: false });
+    const [healed] = await db.select({ results: revisions.results }).from(revisions).where(eq(revisions.id, revisionId));
+    expect(canonicalJson(healed.results)).toBe(canonicalJson(revision.results));
     await prepareForSubmit(sessions.designer, revisionId);
     await json(await step(sessions.designer, revisionId, 'submit'), 200);
   });

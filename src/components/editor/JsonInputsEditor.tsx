@@ -17,7 +17,7 @@ export default function JsonInputsEditor({ detail, readOnly }: { detail: Revisio
     mutationFn: (inputs: unknown) => api(`/api/revisions/${r.id}/inputs`, { method: 'PUT', body: { version: r.version, inputs } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['revision', r.id] }),
   });
-  const calculate = useMutation({ mutationFn: () => api(`/api/revisions/${r.id}/calculate`, { method: 'POST' }), onSuccess: () => queryClient.invalidateQueries({ queryKey: ['revision', r.id] }) });
+  const calculate = useMutation({ mutationFn: () => api<{ unchanged: boolean; inputsHash: string }>(`/api/revisions/${r.id}/calculate`, { method: 'POST' }), onSuccess: () => queryClient.invalidateQueries({ queryKey: ['revision', r.id] }) });
 
   function submit() {
     let raw: unknown;
@@ -45,6 +45,7 @@ export default function JsonInputsEditor({ detail, readOnly }: { detail: Revisio
           <Button onClick={submit} disabled={save.isPending}>Save inputs</Button>
           <Button tone="plain" onClick={() => calculate.mutate()} disabled={calculate.isPending}>Calculate</Button>
           {calculate.isPending && <Busy label="Solving every case…" />}
+          {calculate.data?.unchanged && calculate.data.inputsHash === r.inputsHash && <span className="text-sm text-ink-soft" role="status">Nothing had changed since the last calculation: the results stand as they were.</span>}
           <ErrorNote error={save.error ?? calculate.error} />
         </div>
       )}

@@ -102,7 +102,7 @@ export default function StudyForm({ detail, readOnly, schema, children }: { deta
     },
   });
   const calculate = useMutation({
-    mutationFn: () => api(`/api/revisions/${r.id}/calculate`, { method: 'POST' }),
+    mutationFn: () => api<{ unchanged: boolean; inputsHash: string }>(`/api/revisions/${r.id}/calculate`, { method: 'POST' }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: ['revision', r.id] }),
   });
   const onInvalid = () => requestAnimationFrame(() => { const first = flattenErrors(form.formState.errors)[0]; if (first) goToField(first.path); });
@@ -141,6 +141,7 @@ export default function StudyForm({ detail, readOnly, schema, children }: { deta
               {calculate.isPending && <Busy label="Solving every case…" />}
               {formState.isDirty && <span className="text-sm text-caution" data-testid="unsaved">Unsaved changes (kept in this browser{storageRefused ? ' — the browser refused to keep them: save soon' : ''}): save before calculating.</span>}
               {!formState.isDirty && r.results && r.resultsInputsHash === r.inputsHash && <span className="text-sm text-pass" data-testid="calculated">Results are current for these inputs: see the results and the checklist.</span>}
+              {!formState.isDirty && calculate.data?.unchanged && calculate.data.inputsHash === r.inputsHash && <span className="text-sm text-ink-soft" role="status" data-testid="calculation-unchanged">Nothing had changed since the last calculation (inputs, engine version, limit set): the results stand as they were.</span>}
               {!formState.isDirty && r.results && r.resultsInputsHash !== r.inputsHash && <span className="text-sm text-caution">Inputs changed since the last calculation: calculate again.</span>}
               <ErrorNote error={save.error && !(save.error instanceof ApiError && save.error.status === 409) ? save.error : calculate.error} />
             </div>

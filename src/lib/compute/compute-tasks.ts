@@ -24,7 +24,9 @@ export type ComputeTask =
    * `reuse`, results already stored for these inputs are kept instead when they hash (in compact
    * form) to what a fresh calculation of these inputs with this engine gave.
    */
-  | { task: 'calculate'; studyKind: StudyKind; rawInputs: unknown; limits: LimitSet; reuse?: { storedJson: string; knownHash: string } }
+  | { task: 'calculate'; studyKind: StudyKind; rawInputs: unknown; limits: LimitSet; reuse?: { storedBytes: Uint8Array; knownHash: string } }
+  /** Whether stored results (JSON bytes) hash, in compact form, to what a fresh calculation gave. */
+  | { task: 'storedResultsMatch'; storedBytes: Uint8Array; knownHash: string }
   /** Calculate again and give the hashes of the results as stored (compact) and in full. */
   | { task: 'reproduce'; studyKind: StudyKind; rawInputs: unknown }
   /** The route profile of one bonding case, recomputed from the inputs. */
@@ -48,11 +50,11 @@ export interface TaskError {
 export interface Calculated {
   inputs: Study;
   /**
-   * What is stored, as JSON text: compact (stored-results.ts), or the stored results when kept.
-   * Text crosses the thread boundary as one copy, where an object graph of megabytes would be
-   * rebuilt (and then serialised again for the database) on the request thread.
+   * What is stored, as UTF-8 JSON bytes, compact (stored-results.ts); null when the stored results
+   * are kept. Bytes cross the thread boundary as one copy and go to the database as they are,
+   * where an object graph of megabytes would be rebuilt (and serialised again) on the request thread.
    */
-  resultsJson: string;
+  resultsBytes: Uint8Array | null;
   computed: ChecklistItem[];
   /** SHA-256 of the canonical JSON of `results` in compact form. */
   resultsHash: string;
@@ -69,6 +71,7 @@ export type TaskResult<T> = { ok: true; value: T } | { ok: false; error: TaskErr
 
 export type ComputeOutput = {
   calculate: Calculated;
+  storedResultsMatch: boolean;
   reproduce: Reproduced;
   profile: CaseResult['profile'] | null;
   record: Uint8Array;
@@ -78,6 +81,8 @@ export type ComputeOutput = {
 };
 
 const hashOf = (value: unknown) => sha256Hex(canonicalJson(value));
+const storedMatches = (stored: StudyResults, knownHash: string) => hashOf(compactResults(stored)) === knownHash;
+const parseBytes = (bytes: Uint8Array) => JSON.parse(new TextDecoder().decode(bytes)) as StudyResults;
 
 /** Runs one task; catalogue and calculation errors come back as values, anything else throws. */
 export async function runComputeTask(t: ComputeTask): Promise<TaskResult<unknown>> {
@@ -99,16 +104,18 @@ async function run(t: ComputeTask): Promise<unknown> {
       const inputs = parseStudyInputs(t.rawInputs, t.studyKind);
       // The checks read worst values and points, never the route profile compact results lack.
       if (t.reuse) {
-        const stored = JSON.parse(t.reuse.storedJson) as StudyResults;
-        if (hashOf(compactResults(stored)) === t.reuse.knownHash) {
-          return { inputs, resultsJson: t.reuse.storedJson, computed: evaluateCompliance(inputs, stored, t.limits), resultsHash: t.reuse.knownHash, fresh: false } satisfies Calculated;
+        const stored = parseBytes(t.reuse.storedBytes);
+        if (storedMatches(stored, t.reuse.knownHash)) {
+          return { inputs, resultsBytes: null, computed: evaluateCompliance(inputs, stored, t.limits), resultsHash: t.reuse.knownHash, fresh: false } satisfies Calculated;
         }
       }
       const full = calculateStudy(inputs);
       const computed = evaluateCompliance(inputs, full, t.limits);
       const results = compactResults(full);
-      return { inputs, resultsJson: JSON.stringify(results), computed, resultsHash: hashOf(results), fresh: true } satisfies Calculated;
+      return { inputs, resultsBytes: new TextEncoder().encode(JSON.stringify(results)), computed, resultsHash: hashOf(results), fresh: true } satisfies Calculated;
     }
+    case 'storedResultsMatch':
+      return storedMatches(parseBytes(t.storedBytes), t.knownHash);
     case 'reproduce': {
       const full = calculateStudy(parseStudyInputs(t.rawInputs, t.studyKind));
       return { compactHash: hashOf(compactResults(full)), fullHash: hashOf(full) } satisfies Reproduced;

@@ -1,6 +1,9 @@
-import { and, asc, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
+import { type Column, and, asc, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
+import { jsonBytes, rowJson, rowsJson } from './json-select';
+import { cachedResultsBytes, rememberResultsBytes } from './results-bytes';
 import type { Database } from './client';
-import { checkValues, checklistItems, limitSetVersions, memberships, projects, remarks, revisions, signOffs, studies, users } from './schema';
+import { checkValues, checklistItems, limitSetVersions, memberships, projects, recomputations, remarks, revisions, signOffs, studies, users } from './schema';
+import { ENGINE_VERSION } from '../calc';
 import { AppError } from '../errors';
 import type { ProjectRole } from './schema/projects';
 
@@ -30,10 +33,30 @@ export async function loadRevisionScope(db: Database, revisionId: string, { lock
 }
 
 /**
- * A revision and its study for a calculation: the results as JSON text (null before any
- * calculation), so that a worker thread parses them and the request thread never does.
+ * What a calculation decides on, in one read: the revision and its study, the results as JSON
+ * bytes (null before any calculation) for a worker thread to parse, read from the database
+ * (never from `results-bytes`: a calculation checks the stored figures themselves), the id of
+ * the study's latest limit set version, and the results hash a fresh calculation of these
+ * inputs with this engine gave, if one is recorded.
  */
-export const revisionForCalculation = (db: Database, revisionId: string) => loadRevisionScopeWithResultsText(db, revisionId);
+export async function loadCalculationScope(db: Database, revisionId: string) {
+  assertId(revisionId, 'revision');
+  const { results: _results, ...columns } = getTableColumns(revisions);
+  const [row] = await db
+    .select({
+      revision: columns,
+      study: studies,
+      resultsBytes: sql<Buffer | null>`convert_to(${revisions.results}::text, 'UTF8')`,
+      latestLimitSetVersionId: sql<string | null>`(select ${limitSetVersions.id} from ${limitSetVersions} where ${limitSetVersions.limitSetId} = ${studies.limitSetId} order by ${limitSetVersions.version} desc limit 1)`,
+      knownResultsHash: sql<string | null>`(select ${recomputations.resultsHash} from ${recomputations} where ${recomputations.inputsHash} = ${revisions.inputsHash} and ${recomputations.engineVersion} = ${ENGINE_VERSION})`,
+    })
+    .from(revisions)
+    .innerJoin(studies, eq(studies.id, revisions.studyId))
+    .where(eq(revisions.id, revisionId));
+  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+  return row;
+}
+export type CalculationScope = Awaited<ReturnType<typeof loadCalculationScope>>;
 
 export async function loadStudyScope(db: Database, studyId: string) {
   assertId(studyId, 'study');
@@ -67,39 +90,69 @@ export async function revisionDetail(db: Database, revisionId: string) {
   return { ...scope, ...(await revisionParts(db, revisionId)) };
 }
 
-/**
- * A revision with its study and project for the revision screen, its results as the stored JSON
- * text: the API passes them through untouched (revisionDetailJson) instead of parsing and
- * re-serialising tens of kilobytes on every read.
- */
-export async function loadRevisionScopeWithResultsText(db: Database, revisionId: string) {
-  assertId(revisionId, 'revision');
-  const { results: _results, ...columns } = getTableColumns(revisions);
-  const [row] = await db
-    .select({ revision: columns, study: studies, project: projects, resultsJson: sql<string | null>`${revisions.results}::text` })
+/** The revision screen's data as JSON bytes, part by part; the results only when asked for (else null). */
+function detailQuery(db: Database, withResults: boolean) {
+  const ofRevision = <T extends { revisionId: Column }>(t: T) => eq(t.revisionId, revisions.id);
+  return db
+    .select({
+      projectId: projects.id,
+      version: revisions.version,
+      revision: jsonBytes(rowJson(revisions, {}, ['results'])),
+      study: jsonBytes(rowJson(studies)),
+      project: jsonBytes(rowJson(projects)),
+      checklist: jsonBytes(rowsJson(checklistItems, ofRevision(checklistItems), sql`${checklistItems.sortOrder}, ${checklistItems.id}`)),
+      remarks: jsonBytes(rowsJson(remarks, ofRevision(remarks), sql`${remarks.createdAt}, ${remarks.id}`, { authorName: users.name }, sql`join ${users} on ${users.id} = ${remarks.authorId}`)),
+      checkValues: jsonBytes(rowsJson(checkValues, ofRevision(checkValues), sql`${checkValues.createdAt}, ${checkValues.id}`)),
+      signOffs: jsonBytes(rowsJson(signOffs, ofRevision(signOffs), sql`${signOffs.createdAt}, ${signOffs.id}`, { name: users.name }, sql`join ${users} on ${users.id} = ${signOffs.userId}`)),
+      results: withResults ? sql<Buffer | null>`convert_to(${revisions.results}::text, 'UTF8')` : sql<Buffer | null>`null::bytea`,
+    })
     .from(revisions)
     .innerJoin(studies, eq(studies.id, revisions.studyId))
     .innerJoin(projects, eq(projects.id, studies.projectId))
-    .where(eq(revisions.id, revisionId));
-  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
-  return row;
+    .where(eq(revisions.id, sql.placeholder('id')))
+    .prepare(withResults ? 'revision_detail_with_results' : 'revision_detail');
 }
 
-/** The JSON text of `revisionDetail` for a scope from loadRevisionScopeWithResultsText, results spliced in as stored. */
-export async function revisionDetailJson(db: Database, scope: Awaited<ReturnType<typeof loadRevisionScopeWithResultsText>>): Promise<string> {
-  const { revision, resultsJson, ...rest } = scope;
-  const parts = await revisionParts(db, revision.id);
-  const revisionText = JSON.stringify(revision);
-  return `{"revision":${revisionText.slice(0, -1)},"results":${resultsJson ?? 'null'}},${JSON.stringify({ ...rest, ...parts }).slice(1)}`;
+// Prepared once per database handle: building these statements cost more than running them.
+const detailQueries = new WeakMap<Database, { parts: ReturnType<typeof detailQuery>; withResults: ReturnType<typeof detailQuery> }>();
+
+const NO_RESULTS = Buffer.from('null');
+
+/**
+ * `revisionDetail` as JSON bytes, with the project's id (to authorise before it is sent). The
+ * database writes every part as JSON and the server only joins the bytes: it never parses and
+ * re-serialises the results and checklist. The results come from `results-bytes` when this
+ * version's are there, else from the database (and are kept there).
+ */
+export async function revisionDetailBytes(db: Database, revisionId: string): Promise<{ projectId: string; body: Buffer }> {
+  assertId(revisionId, 'revision');
+  let queries = detailQueries.get(db);
+  if (!queries) detailQueries.set(db, (queries = { parts: detailQuery(db, false), withResults: detailQuery(db, true) }));
+  let [row] = await queries.parts.execute({ id: revisionId });
+  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+  let results = cachedResultsBytes(revisionId, row.version);
+  if (!results) {
+    [row] = await queries.withResults.execute({ id: revisionId });
+    if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+    results = row.results ?? NO_RESULTS;
+    rememberResultsBytes(revisionId, row.version, results);
+  }
+  const text = (t: string) => Buffer.from(t);
+  const body = Buffer.concat([
+    text('{"revision":'), row.revision.subarray(0, -1), text(',"results":'), results,
+    text('},"study":'), row.study, text(',"project":'), row.project, text(',"checklist":'), row.checklist,
+    text(',"remarks":'), row.remarks, text(',"checkValues":'), row.checkValues, text(',"signOffs":'), row.signOffs, text('}'),
+  ]);
+  return { projectId: row.projectId, body };
 }
 
 /** What a revision screen shows beside the revision itself: checklist, remarks, check values, sign-offs. */
 async function revisionParts(db: Database, revisionId: string) {
   const [checklist, remarkRows, values, signatures] = await Promise.all([
-    db.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId)).orderBy(asc(checklistItems.sortOrder)),
-    db.select({ remark: remarks, authorName: users.name }).from(remarks).innerJoin(users, eq(users.id, remarks.authorId)).where(eq(remarks.revisionId, revisionId)).orderBy(asc(remarks.createdAt)),
-    db.select().from(checkValues).where(eq(checkValues.revisionId, revisionId)).orderBy(asc(checkValues.createdAt)),
-    db.select({ signOff: signOffs, name: users.name }).from(signOffs).innerJoin(users, eq(users.id, signOffs.userId)).where(eq(signOffs.revisionId, revisionId)).orderBy(asc(signOffs.createdAt)),
+    db.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId)).orderBy(asc(checklistItems.sortOrder), asc(checklistItems.id)),
+    db.select({ remark: remarks, authorName: users.name }).from(remarks).innerJoin(users, eq(users.id, remarks.authorId)).where(eq(remarks.revisionId, revisionId)).orderBy(asc(remarks.createdAt), asc(remarks.id)),
+    db.select().from(checkValues).where(eq(checkValues.revisionId, revisionId)).orderBy(asc(checkValues.createdAt), asc(checkValues.id)),
+    db.select({ signOff: signOffs, name: users.name }).from(signOffs).innerJoin(users, eq(users.id, signOffs.userId)).where(eq(signOffs.revisionId, revisionId)).orderBy(asc(signOffs.createdAt), asc(signOffs.id)),
   ]);
   return {
     checklist,

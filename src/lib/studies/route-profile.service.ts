@@ -1,33 +1,65 @@
+import { eq, sql } from 'drizzle-orm';
+import { LRUCache } from 'lru-cache';
 import type { Database } from '../db/client';
-import { loadRevisionScope } from '../db/revisions.repo';
+import { revisions, studies } from '../db/schema';
+import { assertId } from '../db/revisions.repo';
 import { AppError } from '../errors';
 import { ENGINE_VERSION } from '../calc';
-import type { CaseResult } from '../calc/bonding/results';
 import { compute } from '../compute/compute-pool';
-import type { StoredCaseResult } from './stored-results';
 
-export interface RouteProfile {
-  caseId: string;
-  profile: CaseResult['profile'];
-  /** false: read from results stored with their profiles; true: calculated again from the same inputs and engine. */
-  recomputed: boolean;
+/**
+ * Recomputed profiles as JSON text, keyed by what determines them (inputs hash, engine version,
+ * case): an entry can never be out of date, so every server process may keep its own. Bounded
+ * by size, as a long route's profiles run to megabytes.
+ */
+const recomputedProfiles = new LRUCache<string, string>({ maxSize: 64 * 1024 * 1024, sizeCalculation: (text) => Math.max(1, text.length) });
+
+/** What decides a route profile request, in one read: the stored case's own profile (older revisions kept them) as JSON text. */
+async function profileScope(db: Database, revisionId: string, caseId: string) {
+  assertId(revisionId, 'revision');
+  const storedCase = sql`(select c from jsonb_array_elements(${revisions.results}->'cases') c where c->>'caseId' = ${caseId} limit 1)`;
+  const [row] = await db
+    .select({
+      projectId: studies.projectId,
+      kind: studies.kind,
+      inputs: revisions.inputs,
+      inputsHash: revisions.inputsHash,
+      resultsInputsHash: revisions.resultsInputsHash,
+      engineVersion: revisions.engineVersion,
+      calculated: sql<boolean>`${revisions.results} is not null`,
+      caseFound: sql<boolean>`${storedCase} is not null`,
+      storedProfileJson: sql<string | null>`(${storedCase}->'profile')::text`,
+    })
+    .from(revisions)
+    .innerJoin(studies, eq(studies.id, revisions.studyId))
+    .where(eq(revisions.id, revisionId));
+  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
+  return row;
 }
 
 /**
- * The route profile of one case of a calculated bonding revision, for the plot: stored with the
- * results by older revisions, recomputed (in a worker thread) for the others. A profile is only
- * drawn from the inputs and engine the stored figures came from.
+ * The route profile of one case of a calculated bonding revision, for the plot, as the JSON text
+ * of `{ caseId, profile, recomputed }`: stored with the results by older revisions (recomputed
+ * false), recomputed in a worker thread for the others. A profile is only drawn from the inputs
+ * and engine the stored figures came from. `authorizeProject` runs before anything is computed.
  */
-export async function routeProfile(db: Database, revisionId: string, caseId: string): Promise<RouteProfile> {
-  const { revision, study } = await loadRevisionScope(db, revisionId);
-  if (study.kind !== 'bonding') throw new AppError('NotFound', 'Only a bonding study has a route profile.');
-  const stored = (revision.results as { cases?: StoredCaseResult[] } | null)?.cases?.find((c) => c.caseId === caseId);
-  if (!revision.results) throw new AppError('StepRefused', 'The revision has not been calculated: calculate it first.');
-  if (!stored) throw new AppError('NotFound', `There is no case "${caseId}" in this revision's results.`);
-  if (stored.profile) return { caseId, profile: stored.profile, recomputed: false };
-  if (revision.resultsInputsHash !== revision.inputsHash) throw new AppError('StepRefused', 'The inputs changed after the last calculation: calculate again to draw the route plot.');
-  if (revision.engineVersion !== ENGINE_VERSION) throw new AppError('StepRefused', `These results come from engine ${revision.engineVersion}, and this server runs engine ${ENGINE_VERSION}: start a new revision and calculate it to draw the route plot.`);
-  const profile = await compute({ task: 'profile', studyKind: study.kind, rawInputs: revision.inputs, caseId });
-  if (!profile) throw new AppError('NotFound', `There is no case "${caseId}" in this revision's results.`);
-  return { caseId, profile, recomputed: true };
+export async function routeProfileJson(db: Database, revisionId: string, caseId: string, authorizeProject: (projectId: string) => void): Promise<string> {
+  const scope = await profileScope(db, revisionId, caseId);
+  authorizeProject(scope.projectId);
+  if (scope.kind !== 'bonding') throw new AppError('NotFound', 'Only a bonding study has a route profile.');
+  if (!scope.calculated) throw new AppError('StepRefused', 'The revision has not been calculated: calculate it first.');
+  if (!scope.caseFound) throw new AppError('NotFound', `There is no case "${caseId}" in this revision's results.`);
+  const answer = (profileJson: string, recomputed: boolean) => `{"caseId":${JSON.stringify(caseId)},"profile":${profileJson},"recomputed":${recomputed}}`;
+  if (scope.storedProfileJson !== null) return answer(scope.storedProfileJson, false);
+  if (scope.resultsInputsHash !== scope.inputsHash) throw new AppError('StepRefused', 'The inputs changed after the last calculation: calculate again to draw the route plot.');
+  if (scope.engineVersion !== ENGINE_VERSION) throw new AppError('StepRefused', `These results come from engine ${scope.engineVersion}, and this server runs engine ${ENGINE_VERSION}: start a new revision and calculate it to draw the route plot.`);
+  const key = `${scope.inputsHash}|${ENGINE_VERSION}|${caseId}`;
+  let profileJson = recomputedProfiles.get(key);
+  if (profileJson === undefined) {
+    const profile = await compute({ task: 'profile', studyKind: scope.kind, rawInputs: scope.inputs, caseId });
+    if (!profile) throw new AppError('NotFound', `There is no case "${caseId}" in this revision's results.`);
+    profileJson = JSON.stringify(profile);
+    recomputedProfiles.set(key, profileJson);
+  }
+  return answer(profileJson, true);
 }

@@ -12,9 +12,9 @@ import { jsonDiff } from '../json-diff';
 import { describeInputChanges } from '../compare/input-changes';
 import { ENGINE_VERSION } from '../calc';
 import { compute } from '../compute/compute-pool';
-import { knownRecomputation, rememberRecomputation } from './recomputations.repo';
+import { rememberRecomputation } from './recomputations.repo';
 import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '../workflow/revision.machine';
-import { latestLimitSetVersion, loadRevisionScope, loadStudyScope, revisionForCalculation } from '../db/revisions.repo';
+import { type CalculationScope, latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
 import { checklistRows } from './checklist-rows';
 import { parseStudyInputs } from './study-input';
 import { issuedRevisionOf } from './study-copy.service';
@@ -86,29 +86,34 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
  * Calculates a revision in a worker thread, stores the results (compact: no route profiles) with
  * the engine version and inputs hash, and refreshes its checklist. Results already stored for
  * the same inputs hash and engine version are kept when they match the recorded recomputation
- * (`recomputations`): only the limit set is applied again.
+ * (`recomputations`): only the limit set is applied again. When the limit set version is the one
+ * applied last as well, nothing would change: nothing is written and the answer says `unchanged`.
  */
-export async function calculateRevision(s: AppServices, actor: SessionUser, revisionId: string) {
+export async function calculateRevision(s: AppServices, actor: SessionUser, scope: CalculationScope) {
   // The cheap refusals (state, designer) come first; the calculation runs outside the lock, and
   // the inputs hash under the lock proves the inputs are still the ones calculated (two people
   // calculating the same inputs at once both succeed; an edit in between is a conflict). The
-  // results travel as JSON text: the request thread never parses or serialises them.
-  const { revision, study, resultsJson: storedJson } = await revisionForCalculation(s.db, revisionId);
+  // results travel as JSON bytes: the request thread never decodes, parses or serialises them.
+  const { revision, study, resultsBytes: storedBytes, knownResultsHash } = scope;
+  const revisionId = revision.id;
   assertEditableBy(actor, revision);
+  const sameInputs = storedBytes !== null && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
+  const reuse = sameInputs && knownResultsHash ? { storedBytes, knownHash: knownResultsHash } : undefined;
+  const upToDate = reuse && revision.limitSetVersionId === scope.latestLimitSetVersionId;
+  if (upToDate && (await compute({ task: 'storedResultsMatch', ...reuse }))) {
+    return { id: revisionId, version: revision.version, engineVersion: revision.engineVersion, inputsHash: revision.inputsHash, unchanged: true };
+  }
   const limits = await latestLimitSetVersion(s.db, study.limitSetId);
   const [{ name }] = await s.db.select({ name: limitSets.name }).from(limitSets).where(eq(limitSets.id, study.limitSetId));
   const limitSet = { name, version: limits.version, limits: limits.limits };
-  const sameInputs = storedJson !== null && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
-  const knownHash = sameInputs ? await knownRecomputation(s.db, revision.inputsHash) : null;
-  const reuse = storedJson && knownHash ? { storedJson, knownHash } : undefined;
-  const { inputs, resultsJson, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
+  const { inputs, resultsBytes, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
   return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
     assertEditableBy(actor, current);
     if (current.inputsHash !== revision.inputsHash) throw new AppError('Conflict', 'The inputs changed while they were being calculated: calculate again.');
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
       .update(revisions)
-      .set({ ...(fresh ? { results: sql`${resultsJson}::jsonb` } : {}), resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .set({ ...(resultsBytes ? { results: sql`convert_from(${Buffer.from(resultsBytes.buffer, resultsBytes.byteOffset, resultsBytes.length)}::bytea, 'UTF8')::jsonb` } : {}), resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
       .where(eq(revisions.id, revisionId))
       .returning({ id: revisions.id, version: revisions.version, engineVersion: revisions.engineVersion, inputsHash: revisions.inputsHash });
     if (fresh) await rememberRecomputation(tx, revision.inputsHash, resultsHash);
@@ -129,7 +134,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, revi
         verdicts: { pass: computed.filter((c) => c.status === 'pass').length, fail: computed.filter((c) => c.status === 'fail').length, noLimit: computed.filter((c) => c.status === 'no-limit').length },
       },
     });
-    return updated;
+    return { ...updated, unchanged: false };
   });
 }
 

@@ -2,12 +2,12 @@ import { authorize } from '../../../../lib/server/authorize';
 import { endpoint } from '../../../../lib/server/http';
 import { services } from '../../../../lib/server/services.server';
 import { READERS } from '../../../../lib/server/scope';
-import { loadRevisionScopeWithResultsText, revisionDetailJson } from '../../../../lib/db/revisions.repo';
+import { revisionDetailBytes } from '../../../../lib/db/revisions.repo';
 
 export const GET = endpoint(async ({ locals, params }) => {
   const { db } = await services();
-  const scope = await loadRevisionScopeWithResultsText(db, params.revisionId!);
-  authorize(locals.user, { anyRole: READERS, projectId: scope.project.id });
-  // A Buffer body: a string of this size would be checked character by character on the way out.
-  return new Response(Buffer.from(await revisionDetailJson(db, scope)), { headers: { 'Content-Type': 'application/json' } });
+  const { projectId, body } = await revisionDetailBytes(db, params.revisionId!);
+  authorize(locals.user, { anyRole: READERS, projectId });
+  // Bytes as the database wrote them (a Buffer is a Uint8Array; the DOM types want one over a plain ArrayBuffer).
+  return new Response(body as Uint8Array<ArrayBuffer>, { headers: { 'Content-Type': 'application/json' } });
 });
