@@ -25,6 +25,8 @@ export type ComputeTask =
    * form) to what a fresh calculation of these inputs with this engine gave.
    */
   | { task: 'calculate'; studyKind: StudyKind; rawInputs: unknown; limits: LimitSet; reuse?: { storedBytes: Uint8Array; knownHash: string } }
+  /** SHA-256 of the canonical JSON of results given as JSON bytes (what a sign-off records). */
+  | { task: 'resultsHash'; bytes: Uint8Array }
   /** Whether stored results (JSON bytes) hash, in compact form, to what a fresh calculation gave. */
   | { task: 'storedResultsMatch'; storedBytes: Uint8Array; knownHash: string }
   /** Calculate again and give the hashes of the results as stored (compact) and in full. */
@@ -71,6 +73,7 @@ export type TaskResult<T> = { ok: true; value: T } | { ok: false; error: TaskErr
 
 export type ComputeOutput = {
   calculate: Calculated;
+  resultsHash: string;
   storedResultsMatch: boolean;
   reproduce: Reproduced;
   profile: CaseResult['profile'] | null;
@@ -114,6 +117,8 @@ async function run(t: ComputeTask): Promise<unknown> {
       const results = compactResults(full);
       return { inputs, resultsBytes: new TextEncoder().encode(JSON.stringify(results)), computed, resultsHash: hashOf(results), fresh: true } satisfies Calculated;
     }
+    case 'resultsHash':
+      return hashOf(parseBytes(t.bytes));
     case 'storedResultsMatch':
       return storedMatches(parseBytes(t.storedBytes), t.knownHash);
     case 'reproduce': {

@@ -12,7 +12,7 @@ import { compareMeasurements, parseMeasurements, type Comparison } from '../file
 import { documentNumber } from '../admin/document-number';
 import { compareRevisions } from '../compare/compare.service';
 import { xmlSafe } from './xml-safe-text';
-import { signOffStanding } from '../workflow/sign-off';
+import { resultsHash, signOffStanding } from '../workflow/sign-off';
 import { committedValidationFile, type RecordValidation } from './record-validation';
 import { recordSettingsOf } from '../admin/record-settings.service';
 
@@ -52,6 +52,7 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
   const changes = await compareRevisions(db, revisionId, 'previous');
   const explorations = await gatherExplorations(db, revisionId);
 
+  const current = { inputsHash: revision.inputsHash, resultsHash: resultsHash(revision.results) };
   return xmlSafe({
     draft: !['issued', 'superseded'].includes(revision.state),
     documentNumber: await recordDocumentNumber(db, detail),
@@ -66,7 +67,7 @@ export async function gatherRecordData(db: Database, revisionId: string, store?:
     remarks: detail.remarks,
     checkValues: detail.checkValues,
     // Each signature with whether it still covers these inputs and results.
-    signOffs: detail.signOffs.map((signed) => ({ ...signed, ...signOffStanding(signed, revision) })),
+    signOffs: detail.signOffs.map((signed) => ({ ...signed, ...signOffStanding(signed, current) })),
     history: history.map((h) => ({ number: h.number, state: h.state, createdAt: h.createdAt, issuedAt: h.issuedAt, designer: people.get(h.designerId) ?? '', checker: h.checkerId ? (people.get(h.checkerId) ?? '') : '', approver: h.approverId ? (people.get(h.approverId) ?? '') : '' })),
     workflowEvents: events.map((e) => ({ at: e.at, revision: numberOf.get(e.revisionId!) ?? 0, type: e.type, actor: e.actorId ? (people.get(e.actorId) ?? '') : 'Sheathwise', reason: typeof (e.detail as { reason?: unknown }).reason === 'string' ? ((e.detail as { reason: string }).reason) : null })),
     files: files.map((f) => ({ fileName: f.fileName, kind: f.kind, sizeBytes: f.sizeBytes, sha256: f.sha256, uploadedBy: people.get(f.uploadedBy) ?? '', createdAt: f.createdAt })),

@@ -17,16 +17,17 @@ export interface SignOffStanding {
 }
 
 /**
- * Whether a sign-off still covers the revision. For the record as well as the screens:
- * `signOffStanding(row, detail.revision)`.
+ * Whether a sign-off still covers the revision, given the hashes of its current inputs and
+ * results (`resultsHash`, worked out once for all of a revision's sign-offs). For the record as
+ * well as the screens.
  */
 export function signOffStanding(
   signOff: { inputsHash: string | null; resultsHash: string | null },
-  revision: { inputsHash: string; results: unknown },
+  current: { inputsHash: string; resultsHash: string | null },
 ): SignOffStanding {
   if (!signOff.inputsHash || !signOff.resultsHash) return { valid: false, voidReason: 'Signed before sign-offs recorded what they covered: it cannot be verified.' };
-  const inputsChanged = signOff.inputsHash !== revision.inputsHash;
-  const resultsChanged = signOff.resultsHash !== resultsHash(revision.results);
+  const inputsChanged = signOff.inputsHash !== current.inputsHash;
+  const resultsChanged = signOff.resultsHash !== current.resultsHash;
   if (inputsChanged && resultsChanged) return { valid: false, voidReason: 'Void: the inputs and the results changed after this signature.' };
   if (inputsChanged) return { valid: false, voidReason: 'Void: the inputs changed after this signature.' };
   if (resultsChanged) return { valid: false, voidReason: 'Void: the results changed after this signature.' };

@@ -71,10 +71,10 @@ describe('a sign-off stands while the inputs and results are the ones it signed'
   });
 
   it('is valid on the same inputs and results, and void (saying why) after either changes', () => {
-    expect(signOffStanding(signed, { inputsHash: 'a'.repeat(64), results: { cases: [{ worstV: 12.5, id: 'LOAD' }] } })).toEqual({ valid: true, voidReason: null });
-    expect(signOffStanding(signed, { inputsHash: 'b'.repeat(64), results })).toEqual({ valid: false, voidReason: 'Void: the inputs changed after this signature.' });
-    expect(signOffStanding(signed, { inputsHash: 'a'.repeat(64), results: { cases: [{ id: 'LOAD', worstV: 13 }] } })).toEqual({ valid: false, voidReason: 'Void: the results changed after this signature.' });
-    expect(signOffStanding(signed, { inputsHash: 'b'.repeat(64), results: null }).voidReason).toBe('Void: the inputs and the results changed after this signature.');
-    expect(signOffStanding({ inputsHash: null, resultsHash: null }, { inputsHash: 'a'.repeat(64), results }).valid).toBe(false);
+    expect(signOffStanding(signed, { inputsHash: 'a'.repeat(64), resultsHash: resultsHash({ cases: [{ worstV: 12.5, id: 'LOAD' }] }) })).toEqual({ valid: true, voidReason: null });
+    expect(signOffStanding(signed, { inputsHash: 'b'.repeat(64), resultsHash: resultsHash(results) })).toEqual({ valid: false, voidReason: 'Void: the inputs changed after this signature.' });
+    expect(signOffStanding(signed, { inputsHash: 'a'.repeat(64), resultsHash: resultsHash({ cases: [{ id: 'LOAD', worstV: 13 }] }) })).toEqual({ valid: false, voidReason: 'Void: the results changed after this signature.' });
+    expect(signOffStanding(signed, { inputsHash: 'b'.repeat(64), resultsHash: resultsHash(null) }).voidReason).toBe('Void: the inputs and the results changed after this signature.');
+    expect(signOffStanding({ inputsHash: null, resultsHash: null }, { inputsHash: 'a'.repeat(64), resultsHash: resultsHash(results) }).valid).toBe(false);
   });
 });
