@@ -46,6 +46,12 @@ describe('changing and removing an asset in the browser', { timeout: 90_000 }, (
     await form.getByLabel('In service on (UTC date)').fill('2023-02-29');
     await form.getByRole('button', { name: 'Save the changes' }).click();
     await expect.poll(() => form.textContent()).toContain('In service on: give a real date');
+    // The error is beside the field, not in its name: the field keeps its label as its name and is described by the error.
+    const date = form.getByRole('textbox', { name: 'In service on (UTC date)', exact: true });
+    expect(await date.getAttribute('aria-invalid')).toBe('true');
+    const describedBy = (await date.getAttribute('aria-describedby'))!;
+    expect(await form.locator(`[id="${describedBy}"]`).textContent()).toContain('In service on: give a real date');
+    expect(await form.getByRole('textbox', { name: 'Name', exact: true }).getAttribute('aria-invalid')).toBe('false');
     await form.getByLabel('In service on (UTC date)').fill(daysFromToday(400));
     await form.getByLabel('Name').fill('Browser circuit, renamed (invented)');
     await form.getByRole('button', { name: 'Save the changes' }).click();

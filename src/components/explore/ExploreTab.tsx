@@ -3,9 +3,14 @@ import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, ReferenceLine, R
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import type { Appraisal, SweepInput, Tornado } from '../../lib/calc/explore';
 import type { PlacementResult, SweepResult } from '../../lib/explore/run-exploration';
-import { api } from '../../lib/queries/api-client';
+import { api, ApiError } from '../../lib/queries/api-client';
+import { readNumber } from '../../lib/paste/read-number';
+import { SWEEP_LIMITS, gridPointCount } from '../../lib/calc/explore/sweep-limits';
+import { explorationRequestSchema } from '../../lib/schemas/exploration.schema';
 import { formatNumber } from '../../lib/format';
 import { Button, Caution, ErrorNote } from '../ui/parts';
+import { FormField } from '../ui/FormField';
+import { sweepFieldErrors } from './sweep-field-words';
 import { useExploration, type ExplorationRow } from './use-exploration';
 import { sweepCurves, sweepGrid } from '../../lib/explore/sweep-series';
 
@@ -188,8 +193,28 @@ function SweepGridTable({ result, criterion, unit }: { result: SweepResult; crit
   );
 }
 
+/** Text typed as a number (decimal point or comma); empty or unreadable is NaN, which the schema names. */
+const typedNumber = (text: string) => {
+  const r = readNumber(text);
+  return 'value' in r ? r.value : NaN;
+};
+
 /** The axis of a sweep from the form's text fields. */
-const axisOf = (key: string, from: string, to: string, points: string) => ({ input: INPUTS.find((i) => i.key === key)!.input, fromValue: Number(from), toValue: Number(to), points: Number(points) });
+const axisOf = (key: string, from: string, to: string, points: string) => ({ input: INPUTS.find((i) => i.key === key)!.input, fromValue: typedNumber(from), toValue: typedNumber(to), points: typedNumber(points) });
+
+const control = 'w-24 border border-rule px-1';
+
+/** The grid size as it is typed, and a warning when the server would refuse it. */
+function GridCount({ total, error }: { total: number; error?: string }) {
+  if (error) return <span className="text-sm text-fail" data-testid="sweep-grid-count">{error}</span>;
+  if (!Number.isFinite(total) || total <= 0) return null;
+  const over = total > SWEEP_LIMITS.maxPoints;
+  return (
+    <span role={over ? 'alert' : undefined} className={over ? 'text-sm text-fail' : 'text-xs text-ink-soft'} data-testid="sweep-grid-count">
+      {over ? `${total.toLocaleString('en-GB')} grid points: over the limit of ${SWEEP_LIMITS.maxPoints.toLocaleString('en-GB')}; use fewer points.` : `${total.toLocaleString('en-GB')} grid points.`}
+    </span>
+  );
+}
 
 function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
   const job = useExploration<SweepResult>(revisionId);
@@ -202,13 +227,23 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
   const [from2, setFrom2] = useState(String(INPUTS[5].from));
   const [to2, setTo2] = useState(String(INPUTS[5].to));
   const [points2, setPoints2] = useState('5');
+  const [formErrors, setFormErrors] = useState<Record<string, string>>({});
   const pick = (k: string, setK: (v: string) => void, setF: (v: string) => void, setT: (v: string) => void) => {
     const n = INPUTS.find((i) => i.key === k)!;
     setK(n.key);
     setF(String(n.from));
     setT(String(n.to));
   };
-  const totalPoints = Number(points) * (withSecond ? Number(points2) : 1);
+  const axes = [axisOf(key, from, to, points), ...(withSecond ? [axisOf(key2, from2, to2, points2)] : [])];
+  const totalPoints = gridPointCount(axes);
+  // The server's refusal of a run, by field, beside the fields as the form's own are.
+  const refused = job.error instanceof ApiError && job.error.fields.length ? job.error : null;
+  const errors = { ...formErrors, ...(refused ? sweepFieldErrors(refused.fields) : {}) };
+  const field = (label: string, ariaLabel: string, path: string, value: string, set: (v: string) => void) => (
+    <FormField className="text-sm" label={label} error={errors[path]}>
+      {(c) => <input {...c} aria-label={ariaLabel} value={value} onChange={(e) => set(e.target.value)} className={control} />}
+    </FormField>
+  );
   return (
     <section className="space-y-3" aria-labelledby="sweep-h">
       <h2 id="sweep-h" className="text-lg font-semibold">Sensitivity sweep</h2>
@@ -216,34 +251,41 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
         <form
           aria-label="Sweep settings"
           className="space-y-2"
+          noValidate
           onSubmit={(e) => {
             e.preventDefault();
-            job.start({ kind: 'sweep', axes: [axisOf(key, from, to, points), ...(withSecond ? [axisOf(key2, from2, to2, points2)] : [])] });
+            // The request schema the server parses with: its refusals show beside the fields before anything is sent.
+            const parsed = explorationRequestSchema.safeParse({ kind: 'sweep', axes });
+            setFormErrors(parsed.success ? {} : sweepFieldErrors(parsed.error.issues.map((i) => ({ field: i.path.join('.'), message: i.message }))));
+            if (parsed.success) void job.start(parsed.data);
           }}
         >
-          <div className="flex flex-wrap items-end gap-2">
-            <label className="text-sm">Input <select aria-label="Input" value={key} onChange={(e) => pick(e.target.value, setKey, setFrom, setTo)} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
-            <label className="text-sm">From <input aria-label="From" value={from} onChange={(e) => setFrom(e.target.value)} className="w-24 border border-rule px-1" /></label>
-            <label className="text-sm">To <input aria-label="To" value={to} onChange={(e) => setTo(e.target.value)} className="w-24 border border-rule px-1" /></label>
-            <label className="text-sm">Points <input aria-label="Points" value={points} onChange={(e) => setPoints(e.target.value)} className="w-20 border border-rule px-1" /></label>
+          <div className="flex flex-wrap items-start gap-2">
+            <FormField className="text-sm" label="Input" error={errors['axes.0.input']}>
+              {(c) => <select {...c} aria-label="Input" value={key} onChange={(e) => pick(e.target.value, setKey, setFrom, setTo)} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select>}
+            </FormField>
+            {field('From', 'From', 'axes.0.fromValue', from, setFrom)}
+            {field('To', 'To', 'axes.0.toValue', to, setTo)}
+            {field('Points', 'Points', 'axes.0.points', points, setPoints)}
           </div>
           <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={withSecond} onChange={(e) => setWithSecond(e.target.checked)} /> Vary a second input (one curve per value)</label>
           {withSecond && (
-            <div className="flex flex-wrap items-end gap-2">
-              <label className="text-sm">Second input <select aria-label="Second input" value={key2} onChange={(e) => pick(e.target.value, setKey2, setFrom2, setTo2)} className="ml-1 border border-rule">{INPUTS.filter((i) => i.key !== key).map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
-              <label className="text-sm">From <input aria-label="Second from" value={from2} onChange={(e) => setFrom2(e.target.value)} className="w-24 border border-rule px-1" /></label>
-              <label className="text-sm">To <input aria-label="Second to" value={to2} onChange={(e) => setTo2(e.target.value)} className="w-24 border border-rule px-1" /></label>
-              <label className="text-sm">Points <input aria-label="Second points" value={points2} onChange={(e) => setPoints2(e.target.value)} className="w-20 border border-rule px-1" /></label>
-              {key2 === key && <span className="text-sm text-fail">Pick an input other than the first.</span>}
+            <div className="flex flex-wrap items-start gap-2">
+              <FormField className="text-sm" label="Second input" error={errors['axes.1.input'] ?? (key2 === key ? 'Second input — which input: pick an input other than the first.' : undefined)}>
+                {(c) => <select {...c} aria-label="Second input" value={key2} onChange={(e) => pick(e.target.value, setKey2, setFrom2, setTo2)} className="ml-1 border border-rule">{INPUTS.filter((i) => i.key !== key).map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select>}
+              </FormField>
+              {field('From', 'Second from', 'axes.1.fromValue', from2, setFrom2)}
+              {field('To', 'Second to', 'axes.1.toValue', to2, setTo2)}
+              {field('Points', 'Second points', 'axes.1.points', points2, setPoints2)}
             </div>
           )}
           <div className="flex items-center gap-2">
-            <Button type="submit" disabled={job.row?.status === 'running' || (withSecond && key2 === key)}>Run the sweep</Button>
-            {Number.isFinite(totalPoints) && totalPoints > 0 && <span className="text-xs text-ink-soft">{totalPoints.toLocaleString('en-GB')} grid points.</span>}
+            <Button type="submit" disabled={job.row?.status === 'running' || (withSecond && key2 === key) || totalPoints > SWEEP_LIMITS.maxPoints}>Run the sweep</Button>
+            <GridCount total={totalPoints} error={errors.axes} />
           </div>
         </form>
       )}
-      <ErrorNote error={job.error} />
+      {refused ? <p role="alert" className="text-sm text-fail">The sweep was refused: see the fields marked.</p> : <ErrorNote error={job.error} />}
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {job.row?.status === 'done' && job.row.result && (
         <>
