@@ -54,7 +54,9 @@ describe('asset codes unique whatever their case, on a database that already has
       await add('Lb-01', true); // removed: no longer in the register, so no clash
       await add('LB-02');
 
-      await expect(migrateDatabase(db)).rejects.toThrow(/Asset codes that differ only in case: project CLASH: LB-01 \(asset [0-9a-f-]+\), lb-01 \(asset [0-9a-f-]+\)\. Rename or remove one asset/);
+      // Drizzle wraps PostgreSQL's error ("Failed query: …"); the database's own message is its cause.
+      const failure = await migrateDatabase(db).then(() => null, (e: Error & { cause?: Error }) => e);
+      expect(failure?.cause?.message).toMatch(/^Asset codes that differ only in case: project CLASH: LB-01 \(asset [0-9a-f-]+\), lb-01 \(asset [0-9a-f-]+\)\. Rename or remove one asset of each group in the register, then migrate again\.$/);
       // Nothing applied: the old index stands, the new one is absent, the codes are as they were.
       const indexes = async () => (await pool.query(`select indexname from pg_indexes where tablename = 'assets' order by indexname`)).rows.map((r) => r.indexname);
       expect(await indexes()).toContain('assets_project_code_live_idx');
