@@ -32,6 +32,21 @@ afterAll(async () => {
 });
 
 describe('changing and removing an asset in the browser', { timeout: 90_000 }, () => {
+  it('refuses a new asset whose code another holds in another case, the error beside the code and naming that asset', async () => {
+    await page.goto(`${appUrl}/projects/${study.projectId}/register`);
+    await hydrated(page);
+    await page.getByRole('button', { name: 'New asset' }).click();
+    const form = page.locator('form').filter({ has: page.getByRole('button', { name: 'Add the asset' }) });
+    const codeBox = form.getByRole('textbox', { name: 'Code', exact: true });
+    await codeBox.fill(code.toLowerCase());
+    await form.getByRole('textbox', { name: 'Name', exact: true }).fill('Same code, other case (invented)');
+    await form.getByRole('textbox', { name: 'Owner standard', exact: true }).fill('Invented');
+    await form.getByRole('button', { name: 'Add the asset' }).click();
+    await expect.poll(() => codeBox.getAttribute('aria-invalid')).toBe('true');
+    const note = form.locator(`[id="${await codeBox.getAttribute('aria-describedby')}"]`);
+    expect(await note.textContent()).toBe(`Code ${code.toLowerCase()} is already used in this project as ${code} (Browser circuit (invented)): codes are the same whatever their case.`);
+  });
+
   it('changes the name, with a refused field shown beside it, then unlinks the study and removes the asset', async () => {
     await page.goto(`${appUrl}/projects/${study.projectId}/register`);
     await hydrated(page);

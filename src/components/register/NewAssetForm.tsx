@@ -33,13 +33,13 @@ export default function NewAssetForm({ projectId, onCreated }: { projectId: stri
   const err = (k: keyof Fields) => form.formState.errors[k]?.message;
   return (
     <form className="grid grid-cols-2 gap-3 rounded-lg border border-rule bg-panel p-4 text-sm md:grid-cols-4" onSubmit={form.handleSubmit((f) => create.mutate(f))}>
-      <FormField label="Kind">{(c) => <select {...c} className={input} {...form.register('kind')}><option value="circuit">circuit</option><option value="site">site</option></select>}</FormField>
+      <FormField label="Kind" error={err('kind')}>{(c) => <select {...c} className={input} {...form.register('kind')}><option value="circuit">circuit</option><option value="site">site</option></select>}</FormField>
       {kind === 'site' && (
-        <FormField label="Site kind">{(c) => <select {...c} className={input} {...form.register('siteKind')}>{['substation', 'link-box-group', 'pipeline', 'fence', 'other'].map((k) => <option key={k}>{k}</option>)}</select>}</FormField>
+        <FormField label="Site kind" error={err('siteKind')}>{(c) => <select {...c} className={input} {...form.register('siteKind')}>{['substation', 'link-box-group', 'pipeline', 'fence', 'other'].map((k) => <option key={k}>{k}</option>)}</select>}</FormField>
       )}
       <FormField label="Code" error={err('code')}>{(c) => <input {...c} className={input} {...form.register('code')} />}</FormField>
       <FormField label="Name" error={err('name')}>{(c) => <input {...c} className={input} {...form.register('name')} />}</FormField>
-      <FormField label="Route">{(c) => <input {...c} className={input} {...form.register('route')} placeholder="from, to, via" />}</FormField>
+      <FormField label="Route" error={err('route')}>{(c) => <input {...c} className={input} {...form.register('route')} placeholder="from, to, via" />}</FormField>
       <FormField label="Owner standard" error={err('ownerStandard')}>{(c) => <input {...c} className={input} {...form.register('ownerStandard')} />}</FormField>
       <FormField label="In service on (UTC date)" error={err('inServiceOn')}>{(c) => <input {...c} className={input} {...form.register('inServiceOn')} placeholder="YYYY-MM-DD" />}</FormField>
       <div className="col-span-full flex items-center gap-3">

@@ -19,7 +19,7 @@ export function FormField({ label, error, className, children }: { label: ReactN
     <div className={className}>
       <label htmlFor={id}>{label}</label>
       {children({ id, 'aria-invalid': !!error, 'aria-describedby': error ? errorId : undefined })}
-      {error && <span id={errorId} className="block text-xs text-fail">{error}</span>}
+      {error && <span id={errorId} className="block max-w-72 text-xs text-fail">{error}</span>}
     </div>
   );
 }
