@@ -128,6 +128,21 @@ describe('design exploration in Chromium', () => {
     expect(started).toEqual([]);
     await screenshot(page, 'explore-sweep-field-error');
 
+    // The tornado and placement forms do the same: beside the field, in words, nothing sent.
+    const pct = page.getByRole('textbox', { name: '± range, % of each input', exact: true });
+    await pct.fill('150');
+    await page.getByRole('button', { name: 'Rank the inputs' }).click();
+    await expect.poll(() => pct.getAttribute('aria-invalid')).toBe('true');
+    expect(await page.locator(`[id="${await pct.getAttribute('aria-describedby')}"]`).textContent()).toBe('± range: The ± range must stay below 100 %.');
+    const placement = page.getByRole('form', { name: 'Placement settings' });
+    const windowsBox = placement.getByRole('textbox', { name: 'Windows', exact: true });
+    await windowsBox.fill('400-600; -50-900');
+    await placement.getByRole('button', { name: 'Suggest joint positions' }).click();
+    await expect.poll(() => windowsBox.getAttribute('aria-invalid')).toBe('true');
+    expect(await placement.locator(`[id="${await windowsBox.getAttribute('aria-describedby')}"]`).textContent()).toContain('Window 2 — ');
+    expect(await page.locator('body').textContent()).not.toMatch(/inputs\.\d|windows\.\d/);
+    expect(started).toEqual([]);
+
     // Put right, the error goes and the sweep runs.
     await form.getByRole('textbox', { name: 'Second to', exact: true }).fill('30');
     await run.click();

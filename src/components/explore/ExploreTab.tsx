@@ -10,7 +10,7 @@ import { explorationRequestSchema } from '../../lib/schemas/exploration.schema';
 import { formatNumber } from '../../lib/format';
 import { Button, Caution, ErrorNote } from '../ui/parts';
 import { FormField } from '../ui/FormField';
-import { sweepFieldErrors } from './sweep-field-words';
+import { issuesAsFields, placementFieldErrors, sweepFieldErrors, tornadoFieldErrors } from './explore-field-words';
 import { useExploration, type ExplorationRow } from './use-exploration';
 import { sweepCurves, sweepGrid } from '../../lib/explore/sweep-series';
 
@@ -193,6 +193,12 @@ function SweepGridTable({ result, criterion, unit }: { result: SweepResult; crit
   );
 }
 
+/** A run the server refused field by field: its fields go beside the form's own, so no note lists them again. */
+const refusedFields = (error: unknown) => (error instanceof ApiError && error.fields.length ? error.fields : null);
+
+/** Under a form whose run was refused: the fields say why, or the refusal itself when it names none. */
+const RefusalNote = ({ error }: { error: unknown }) => (refusedFields(error) ? <p role="alert" className="text-sm text-fail">The run was refused: see the fields marked.</p> : <ErrorNote error={error} />);
+
 /** Text typed as a number (decimal point or comma); empty or unreadable is NaN, which the schema names. */
 const typedNumber = (text: string) => {
   const r = readNumber(text);
@@ -237,8 +243,8 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
   const axes = [axisOf(key, from, to, points), ...(withSecond ? [axisOf(key2, from2, to2, points2)] : [])];
   const totalPoints = gridPointCount(axes);
   // The server's refusal of a run, by field, beside the fields as the form's own are.
-  const refused = job.error instanceof ApiError && job.error.fields.length ? job.error : null;
-  const errors = { ...formErrors, ...(refused ? sweepFieldErrors(refused.fields) : {}) };
+  const refused = refusedFields(job.error);
+  const errors = { ...formErrors, ...(refused ? sweepFieldErrors(refused) : {}) };
   const field = (label: string, ariaLabel: string, path: string, value: string, set: (v: string) => void) => (
     <FormField className="text-sm" label={label} error={errors[path]}>
       {(c) => <input {...c} aria-label={ariaLabel} value={value} onChange={(e) => set(e.target.value)} className={control} />}
@@ -256,7 +262,7 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
             e.preventDefault();
             // The request schema the server parses with: its refusals show beside the fields before anything is sent.
             const parsed = explorationRequestSchema.safeParse({ kind: 'sweep', axes });
-            setFormErrors(parsed.success ? {} : sweepFieldErrors(parsed.error.issues.map((i) => ({ field: i.path.join('.'), message: i.message }))));
+            setFormErrors(parsed.success ? {} : sweepFieldErrors(issuesAsFields(parsed.error.issues)));
             if (parsed.success) void job.start(parsed.data);
           }}
         >
@@ -285,7 +291,7 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
           </div>
         </form>
       )}
-      {refused ? <p role="alert" className="text-sm text-fail">The sweep was refused: see the fields marked.</p> : <ErrorNote error={job.error} />}
+      <RefusalNote error={job.error} />
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {job.row?.status === 'done' && job.row.result && (
         <>
@@ -301,18 +307,31 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
 function TornadoPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
   const job = useExploration<Tornado>(revisionId);
   const [pct, setPct] = useState('20');
+  const [formErrors, setFormErrors] = useState<Record<string, string>>({});
+  const refused = refusedFields(job.error);
+  const errors = { ...formErrors, ...(refused ? tornadoFieldErrors(refused) : {}) };
+  const run = () => {
+    const plusMinusPct = typedNumber(pct);
+    const inputs: SweepInput[] = [{ kind: 'soil-resistivity' }, { kind: 'load-current' }, { kind: 'fault-current' }, { kind: 'earth-resistance', at: 'link-boxes' }, { kind: 'phase-spacing' }, { kind: 'depth' }];
+    const parsed = explorationRequestSchema.safeParse({ kind: 'tornado', inputs: inputs.map((input) => ({ input, plusMinusPct })) });
+    setFormErrors(parsed.success ? {} : tornadoFieldErrors(issuesAsFields(parsed.error.issues)));
+    if (parsed.success) void job.start(parsed.data);
+  };
   const t = job.row?.result;
   const data = (t?.bars ?? []).map((b) => ({ name: b.label, low: b.lowMarginPct === null || t!.baseMarginPct === null ? 0 : b.lowMarginPct - t!.baseMarginPct, high: b.highMarginPct === null || t!.baseMarginPct === null ? 0 : b.highMarginPct - t!.baseMarginPct }));
   return (
     <section className="space-y-3" aria-labelledby="tornado-h">
       <h2 id="tornado-h" className="text-lg font-semibold">Tornado: effect on the worst margin</h2>
       {canRun && (
-        <div className="flex items-end gap-2">
-          <label className="text-sm">± range, % of each input <input value={pct} onChange={(e) => setPct(e.target.value)} className="w-16 border border-rule px-1" /></label>
-          <Button onClick={() => job.start({ kind: 'tornado', inputs: [{ input: { kind: 'soil-resistivity' }, plusMinusPct: Number(pct) }, { input: { kind: 'load-current' }, plusMinusPct: Number(pct) }, { input: { kind: 'fault-current' }, plusMinusPct: Number(pct) }, { input: { kind: 'earth-resistance', at: 'link-boxes' }, plusMinusPct: Number(pct) }, { input: { kind: 'phase-spacing' }, plusMinusPct: Number(pct) }, { input: { kind: 'depth' }, plusMinusPct: Number(pct) }] })}>Rank the inputs</Button>
+        <div className="flex flex-wrap items-start gap-2">
+          <FormField className="text-sm" label="± range, % of each input" error={errors.plusMinusPct}>
+            {(c) => <input {...c} value={pct} onChange={(e) => setPct(e.target.value)} className="ml-1 w-16 border border-rule px-1" />}
+          </FormField>
+          <Button onClick={run} disabled={job.row?.status === 'running'}>Rank the inputs</Button>
+          {errors.form && <span className="text-sm text-fail">{errors.form}</span>}
         </div>
       )}
-      <ErrorNote error={job.error} />
+      <RefusalNote error={job.error} />
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {t && (
         <div className="h-72 w-full" data-testid="tornado-chart">
@@ -337,22 +356,35 @@ function PlacementPanel({ revisionId, canRun }: { revisionId: string; canRun: bo
   const [windows, setWindows] = useState('');
   const [acceptError, setAcceptError] = useState<unknown>(null);
   const p = job.row?.result;
+  const [formErrors, setFormErrors] = useState<Record<string, string>>({});
+  const refused = refusedFields(job.error);
+  const errors = { ...formErrors, ...(refused ? placementFieldErrors(refused) : {}) };
   const parseWindows = () =>
     windows.split(/[;\n]/).map((w) => w.trim()).filter(Boolean).map((w) => {
-      const [fromM, toM] = w.split(/[-–]/).map((x) => Number(x.trim()));
+      const [fromM, toM] = w.split(/[-–]/).map((x) => typedNumber(x ?? ''));
       return { fromM, toM };
     });
+  const run = () => {
+    const parsed = explorationRequestSchema.safeParse({ kind: 'placement', drumLengthM: typedNumber(drum), windows: parseWindows() });
+    setFormErrors(parsed.success ? {} : placementFieldErrors(issuesAsFields(parsed.error.issues)));
+    if (parsed.success) void job.start(parsed.data);
+  };
   return (
     <section className="space-y-3" aria-labelledby="placement-h">
       <h2 id="placement-h" className="text-lg font-semibold">Joint-bay placement</h2>
       {canRun && (
-        <form aria-label="Placement settings" className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); job.start({ kind: 'placement', drumLengthM: Number(drum), windows: parseWindows() }); }}>
-          <label className="text-sm">Drum length limit (m) <input aria-label="Drum length limit (m)" value={drum} onChange={(e) => setDrum(e.target.value)} className="w-24 border border-rule px-1" /></label>
-          <label className="text-sm">Windows for joint bays, chainage m (e.g. 400-600; 900-1100; empty: anywhere) <input aria-label="Windows" value={windows} onChange={(e) => setWindows(e.target.value)} className="w-80 border border-rule px-1" /></label>
+        <form aria-label="Placement settings" noValidate className="flex flex-wrap items-start gap-2" onSubmit={(e) => { e.preventDefault(); run(); }}>
+          <FormField className="text-sm" label="Drum length limit (m)" error={errors.drumLengthM}>
+            {(c) => <input {...c} aria-label="Drum length limit (m)" value={drum} onChange={(e) => setDrum(e.target.value)} className="ml-1 w-24 border border-rule px-1" />}
+          </FormField>
+          <FormField className="text-sm" label="Windows for joint bays, chainage m (e.g. 400-600; 900-1100; empty: anywhere)" error={errors.windows}>
+            {(c) => <input {...c} aria-label="Windows" value={windows} onChange={(e) => setWindows(e.target.value)} className="ml-1 w-80 border border-rule px-1" />}
+          </FormField>
           <Button type="submit" disabled={job.row?.status === 'running'}>Suggest joint positions</Button>
+          {errors.form && <span className="text-sm text-fail">{errors.form}</span>}
         </form>
       )}
-      <ErrorNote error={job.error} />
+      <RefusalNote error={job.error} />
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {p && (
         <>
