@@ -208,7 +208,7 @@ const typedNumber = (text: string) => {
 /** The axis of a sweep from the form's text fields. */
 const axisOf = (key: string, from: string, to: string, points: string) => ({ input: INPUTS.find((i) => i.key === key)!.input, fromValue: typedNumber(from), toValue: typedNumber(to), points: typedNumber(points) });
 
-const control = 'w-24 border border-rule px-1';
+const control = 'ml-1 w-24 border border-rule px-1';
 
 /** The grid size as it is typed, and a warning when the server would refuse it. */
 function GridCount({ total, error }: { total: number; error?: string }) {
