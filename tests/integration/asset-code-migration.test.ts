@@ -49,27 +49,27 @@ describe('asset codes unique whatever their case, on a database that already has
       const [{ id: projectId }] = (await pool.query(`insert into projects (code, name) values ('CLASH', 'Clash project (invented)') returning id`)).rows;
       const add = async (code: string, removed = false) =>
         (await pool.query(`insert into assets (project_id, kind, site_kind, code, name, owner_standard, created_by, removed_at) values ($1, 'site', 'link-box-group', $2, $2, 'Invented', $3, $4) returning id`, [projectId, code, userId, removed ? new Date() : null])).rows[0].id as string;
-      const upper = await add('LB-01');
-      const lower = await add('lb-01');
-      await add('Lb-01', true); // removed: no longer in the register, so no clash
-      await add('LB-02');
+      const upper = await add('LBX-01');
+      const lower = await add('lbx-01');
+      await add('Lbx-01', true); // removed: no longer in the register, so no clash
+      await add('LBX-02');
 
       // Drizzle wraps PostgreSQL's error ("Failed query: …"); the database's own message is its cause.
       const failure = await migrateDatabase(db).then(() => null, (e: Error & { cause?: Error }) => e);
-      expect(failure?.cause?.message).toMatch(/^Asset codes that differ only in case: project CLASH: LB-01 \(asset [0-9a-f-]+\), lb-01 \(asset [0-9a-f-]+\)\. Rename or remove one asset of each group in the register, then migrate again\.$/);
+      expect(failure?.cause?.message).toMatch(/^Asset codes that differ only in case: project CLASH: LBX-01 \(asset [0-9a-f-]+\), lbx-01 \(asset [0-9a-f-]+\)\. Rename or remove one asset of each group in the register, then migrate again\.$/);
       // Nothing applied: the old index stands, the new one is absent, the codes are as they were.
       const indexes = async () => (await pool.query(`select indexname from pg_indexes where tablename = 'assets' order by indexname`)).rows.map((r) => r.indexname);
       expect(await indexes()).toContain('assets_project_code_live_idx');
       expect(await indexes()).not.toContain('assets_project_code_ci_live_idx');
-      expect((await pool.query(`select code from assets where id = any($1) order by code`, [[upper, lower]])).rows.map((r) => r.code)).toEqual(['LB-01', 'lb-01']);
+      expect((await pool.query(`select code from assets where id = any($1) order by code`, [[upper, lower]])).rows.map((r) => r.code)).toEqual(['LBX-01', 'lbx-01']);
 
-      await pool.query(`update assets set code = 'LB-01A' where id = $1`, [lower]);
+      await pool.query(`update assets set code = 'LBX-01A' where id = $1`, [lower]);
       await migrateDatabase(db);
       expect(await indexes()).toContain('assets_project_code_ci_live_idx');
-      await expect(add('lb-02')).rejects.toThrow(/assets_project_code_ci_live_idx/);
+      await expect(add('lbx-02')).rejects.toThrow(/assets_project_code_ci_live_idx/);
       // A removed asset's code, in any case, is free again.
-      await pool.query(`update assets set removed_at = now() where project_id = $1 and code = 'LB-02'`, [projectId]);
-      expect(await add('lb-02')).toMatch(/^[0-9a-f-]{36}$/);
+      await pool.query(`update assets set removed_at = now() where project_id = $1 and code = 'LBX-02'`, [projectId]);
+      expect(await add('lbx-02')).toMatch(/^[0-9a-f-]{36}$/);
     } finally {
       await pool.end();
     }

@@ -81,18 +81,18 @@ describe('editing an asset', () => {
 
 describe('asset codes whatever their case', () => {
   it('refuses on create and on edit a code another asset holds in another case, naming that asset; an asset may change its own case', async () => {
-    const upper = await newAsset(sessions.designer, study.projectId, { kind: 'site', siteKind: 'link-box-group', code: code('LB-01'), name: 'Link boxes upper (invented)', ownerStandard: std.ownerStandard });
-    const lower = code('LB-01').toLowerCase();
+    const upper = await newAsset(sessions.designer, study.projectId, { kind: 'site', siteKind: 'link-box-group', code: code('LBX-01'), name: 'Link boxes upper (invented)', ownerStandard: std.ownerStandard });
+    const lower = code('LBX-01').toLowerCase();
     const refused = await json(await send(sessions.designer, 'POST', `/api/projects/${study.projectId}/assets`, { kind: 'site', siteKind: 'link-box-group', code: lower, name: 'Link boxes lower (invented)', ownerStandard: std.ownerStandard }), 422);
-    expect(refused.fields).toEqual([{ field: 'code', message: `Code ${lower} is already used in this project as ${code('LB-01')} (Link boxes upper (invented)): codes are the same whatever their case.` }]);
-    expect(await registerRows(sessions.designer, `search=${code('LB-01')}`)).toHaveLength(1);
+    expect(refused.fields).toEqual([{ field: 'code', message: `Code ${lower} is already used in this project as ${code('LBX-01')} (Link boxes upper (invented)): codes are the same whatever their case.` }]);
+    expect(await registerRows(sessions.designer, `search=${code('LBX-01')}`)).toHaveLength(1);
 
-    const other = await newAsset(sessions.designer, study.projectId, { kind: 'site', siteKind: 'link-box-group', code: code('LB-02'), name: 'Link boxes two (invented)', ownerStandard: std.ownerStandard });
+    const other = await newAsset(sessions.designer, study.projectId, { kind: 'site', siteKind: 'link-box-group', code: code('LBX-02'), name: 'Link boxes two (invented)', ownerStandard: std.ownerStandard });
     const edit = await json(await send(sessions.designer, 'PATCH', `/api/assets/${other.id}`, { code: lower }), 422);
-    expect(edit.fields).toEqual([{ field: 'code', message: expect.stringContaining(`as ${code('LB-01')} (Link boxes upper (invented))`) }]);
-    expect((await detail(other.id)).asset.code).toBe(code('LB-02'));
+    expect(edit.fields).toEqual([{ field: 'code', message: expect.stringContaining(`as ${code('LBX-01')} (Link boxes upper (invented))`) }]);
+    expect((await detail(other.id)).asset.code).toBe(code('LBX-02'));
     // The same code exactly: named too, by the asset's name.
-    expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${other.id}`, { code: code('LB-01') }), 422)).fields[0].message).toBe(`Code ${code('LB-01')} is already used in this project by Link boxes upper (invented).`);
+    expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${other.id}`, { code: code('LBX-01') }), 422)).fields[0].message).toBe(`Code ${code('LBX-01')} is already used in this project by Link boxes upper (invented).`);
 
     expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${upper.id}`, { code: lower }), 200)).code).toBe(lower);
   });

@@ -23,6 +23,6 @@ describe('a change to an asset', () => {
   });
 
   it('accepts a change of known fields', () => {
-    expect(assetEditSchema.parse({ code: ' LB-02 ', inServiceOn: null })).toEqual({ code: 'LB-02', inServiceOn: null });
+    expect(assetEditSchema.parse({ code: ' LBX-02 ', inServiceOn: null })).toEqual({ code: 'LBX-02', inServiceOn: null });
   });
 });
