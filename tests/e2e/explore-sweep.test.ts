@@ -94,4 +94,61 @@ describe('design exploration in Chromium', () => {
     expect(twoInput).toHaveLength(1);
     expect(errors).toEqual([]);
   });
+
+  it('counts the grid as it is typed, warns over the server limit, and shows a refused field beside it in words', async () => {
+    const started: string[] = [];
+    page.on('request', (r) => (r.method() === 'POST' && /\/explorations$/.test(r.url()) ? started.push(r.url()) : undefined));
+    await page.goto(`${appUrl}/revisions/${revisionId}`);
+    await hydrated(page);
+    await page.getByRole('tab', { name: 'Explore' }).click();
+    const form = page.getByRole('form', { name: 'Sweep settings' });
+    const run = form.getByRole('button', { name: 'Run the sweep' });
+    const count = form.getByTestId('sweep-grid-count');
+    await form.getByRole('textbox', { name: 'Points', exact: true }).fill('200');
+    await form.getByLabel('Vary a second input (one curve per value)').check();
+    await form.getByRole('textbox', { name: 'Second points', exact: true }).fill('6');
+    // 200 × 6 is over the server's 1,000 points (SWEEP_LIMITS.maxPoints): said before anything is sent.
+    await expect.poll(() => count.textContent()).toBe('1,200 grid points: over the limit of 1,000; use fewer points.');
+    expect(await run.isDisabled()).toBe(true);
+    await form.getByRole('textbox', { name: 'Second points', exact: true }).fill('5');
+    await expect.poll(() => count.textContent()).toBe('1,000 grid points.');
+    expect(await run.isDisabled()).toBe(false);
+
+    // A range that ends below its start: refused beside the field, in words, and not sent.
+    await form.getByRole('textbox', { name: 'Points', exact: true }).fill('4');
+    await form.getByRole('textbox', { name: 'Second from', exact: true }).fill('20');
+    await form.getByRole('textbox', { name: 'Second to', exact: true }).fill('10');
+    await run.click();
+    const secondTo = form.getByRole('textbox', { name: 'Second to', exact: true });
+    await expect.poll(() => secondTo.getAttribute('aria-invalid')).toBe('true');
+    const note = form.locator(`[id="${await secondTo.getAttribute('aria-describedby')}"]`);
+    expect(await note.textContent()).toBe('Second input — to value: The range must end at or above its start.');
+    expect(await form.getByRole('textbox', { name: 'Second from', exact: true }).getAttribute('aria-invalid')).toBe('false');
+    expect(await page.locator('body').textContent()).not.toContain('axes.1');
+    expect(started).toEqual([]);
+    await screenshot(page, 'explore-sweep-field-error');
+
+    // The tornado and placement forms do the same: beside the field, in words, nothing sent.
+    const pct = page.getByRole('textbox', { name: '± range, % of each input', exact: true });
+    await pct.fill('150');
+    await page.getByRole('button', { name: 'Rank the inputs' }).click();
+    await expect.poll(() => pct.getAttribute('aria-invalid')).toBe('true');
+    expect(await page.locator(`[id="${await pct.getAttribute('aria-describedby')}"]`).textContent()).toBe('± range: The ± range must stay below 100 %.');
+    const placement = page.getByRole('form', { name: 'Placement settings' });
+    const windowsBox = placement.getByRole('textbox', { name: 'Windows', exact: true });
+    await windowsBox.fill('400-600; -50-900');
+    await placement.getByRole('button', { name: 'Suggest joint positions' }).click();
+    await expect.poll(() => windowsBox.getAttribute('aria-invalid')).toBe('true');
+    expect(await placement.locator(`[id="${await windowsBox.getAttribute('aria-describedby')}"]`).textContent()).toContain('Window 2 — ');
+    expect(await page.locator('body').textContent()).not.toMatch(/inputs\.\d|windows\.\d/);
+    expect(started).toEqual([]);
+
+    // Put right, the error goes and the sweep runs.
+    await form.getByRole('textbox', { name: 'Second to', exact: true }).fill('30');
+    await run.click();
+    await page.getByTestId('sweep-progress').or(page.getByTestId('sweep-chart')).first().waitFor();
+    expect(await secondTo.getAttribute('aria-invalid')).toBe('false');
+    expect(started).toHaveLength(1);
+    expect(errors).toEqual([]);
+  });
 });

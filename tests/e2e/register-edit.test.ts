@@ -32,6 +32,21 @@ afterAll(async () => {
 });
 
 describe('changing and removing an asset in the browser', { timeout: 90_000 }, () => {
+  it('refuses a new asset whose code another holds in another case, the error beside the code and naming that asset', async () => {
+    await page.goto(`${appUrl}/projects/${study.projectId}/register`);
+    await hydrated(page);
+    await page.getByRole('button', { name: 'New asset' }).click();
+    const form = page.locator('form').filter({ has: page.getByRole('button', { name: 'Add the asset' }) });
+    const codeBox = form.getByRole('textbox', { name: 'Code', exact: true });
+    await codeBox.fill(code.toLowerCase());
+    await form.getByRole('textbox', { name: 'Name', exact: true }).fill('Same code, other case (invented)');
+    await form.getByRole('textbox', { name: 'Owner standard', exact: true }).fill('Invented');
+    await form.getByRole('button', { name: 'Add the asset' }).click();
+    await expect.poll(() => codeBox.getAttribute('aria-invalid')).toBe('true');
+    const note = form.locator(`[id="${await codeBox.getAttribute('aria-describedby')}"]`);
+    expect(await note.textContent()).toBe(`Code ${code.toLowerCase()} is already used in this project as ${code} (Browser circuit (invented)): codes are the same whatever their case.`);
+  });
+
   it('changes the name, with a refused field shown beside it, then unlinks the study and removes the asset', async () => {
     await page.goto(`${appUrl}/projects/${study.projectId}/register`);
     await hydrated(page);
@@ -46,6 +61,12 @@ describe('changing and removing an asset in the browser', { timeout: 90_000 }, (
     await form.getByLabel('In service on (UTC date)').fill('2023-02-29');
     await form.getByRole('button', { name: 'Save the changes' }).click();
     await expect.poll(() => form.textContent()).toContain('In service on: give a real date');
+    // The error is beside the field, not in its name: the field keeps its label as its name and is described by the error.
+    const date = form.getByRole('textbox', { name: 'In service on (UTC date)', exact: true });
+    expect(await date.getAttribute('aria-invalid')).toBe('true');
+    const describedBy = (await date.getAttribute('aria-describedby'))!;
+    expect(await form.locator(`[id="${describedBy}"]`).textContent()).toContain('In service on: give a real date');
+    expect(await form.getByRole('textbox', { name: 'Name', exact: true }).getAttribute('aria-invalid')).toBe('false');
     await form.getByLabel('In service on (UTC date)').fill(daysFromToday(400));
     await form.getByLabel('Name').fill('Browser circuit, renamed (invented)');
     await form.getByRole('button', { name: 'Save the changes' }).click();

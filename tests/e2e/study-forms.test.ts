@@ -91,8 +91,19 @@ describe('the study forms', () => {
 
     // An ECC along the whole route, crossed at both inner joints.
     await page.getByRole('button', { name: 'Add ECC' }).click();
+    // Along one section first: no joint inside the run, so "at joints I choose" is not offered.
+    const lastSection = await page.getByLabel('ECC E1 to section').inputValue();
+    await page.getByLabel('ECC E1 to section').selectOption(await page.getByLabel('ECC E1 from section').inputValue());
+    const jointsChoice = page.getByLabel('Transposition of ECC E1').locator('option[value="joints"]');
+    await expect.poll(() => jointsChoice.isDisabled()).toBe(true);
+    expect(await jointsChoice.textContent()).toBe('at joints I choose (no joint inside its run)');
+    await page.getByLabel('ECC E1 to section').selectOption(lastSection);
+    await expect.poll(() => jointsChoice.isDisabled()).toBe(false);
     await page.getByLabel('Transposition of ECC E1').selectOption('joints');
+    // Nothing ticked yet: it says what that means.
+    await expect.poll(() => page.getByTestId('ecc-0-no-crossing').textContent()).toBe('No joint ticked: the ECC is saved and calculated as not transposed.');
     await page.getByLabel('ECC E1 transposed at J1').check();
+    await expect.poll(() => page.getByTestId('ecc-0-no-crossing').count()).toBe(0);
     await page.getByLabel('ECC E1 transposed at J2').check();
 
     // Leads by length, the resistance derived from the conductor.

@@ -45,6 +45,15 @@ describe('editing an asset', () => {
     expect((await audits(circuit.id)).map((a) => a.type)).not.toContain('asset.edited');
   });
 
+  it('refuses an unknown key by its name, changing nothing; an empty change still asks for a field', async () => {
+    const unknown = await json(await send(sessions.designer, 'PATCH', `/api/assets/${circuit.id}`, { nmae: 'Typo (invented)' }), 422);
+    expect(unknown.fields).toEqual([{ field: 'nmae', message: expect.stringContaining('Unknown field "nmae"') }]);
+    const mixed = await json(await send(sessions.designer, 'PATCH', `/api/assets/${circuit.id}`, { name: 'Half-saved? (invented)', voltageKv: 132 }), 422);
+    expect(mixed.fields.map((f: { field: string }) => f.field)).toEqual(['voltageKv']);
+    expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${circuit.id}`, {}), 422)).fields).toEqual([{ field: 'name', message: 'Change at least one field.' }]);
+    expect((await detail(circuit.id)).asset.name).toBe('Edit circuit (invented)');
+  });
+
   it('is for designers and approvers of the project', async () => {
     for (const role of ['checker', 'auditor'] as const) expect((await send(sessions[role], 'PATCH', `/api/assets/${circuit.id}`, { name: 'By the wrong person' })).status).toBe(403);
     expect((await detail(circuit.id)).asset.name).toBe('Edit circuit (invented)');
@@ -67,6 +76,25 @@ describe('editing an asset', () => {
     await json(await send(sessions.designer, 'PATCH', `/api/assets/${circuit.id}`, { ownerStandard: other.ownerStandard }), 200);
     const owed = (await detail(circuit.id)).obligations.map((o: { type: { id: string } }) => o.type.id);
     expect(owed).toEqual([other.oversheathId]);
+  });
+});
+
+describe('asset codes whatever their case', () => {
+  it('refuses on create and on edit a code another asset holds in another case, naming that asset; an asset may change its own case', async () => {
+    const upper = await newAsset(sessions.designer, study.projectId, { kind: 'site', siteKind: 'link-box-group', code: code('LBX-01'), name: 'Link boxes upper (invented)', ownerStandard: std.ownerStandard });
+    const lower = code('LBX-01').toLowerCase();
+    const refused = await json(await send(sessions.designer, 'POST', `/api/projects/${study.projectId}/assets`, { kind: 'site', siteKind: 'link-box-group', code: lower, name: 'Link boxes lower (invented)', ownerStandard: std.ownerStandard }), 422);
+    expect(refused.fields).toEqual([{ field: 'code', message: `Code ${lower} is already used in this project as ${code('LBX-01')} (Link boxes upper (invented)): codes are the same whatever their case.` }]);
+    expect(await registerRows(sessions.designer, `search=${code('LBX-01')}`)).toHaveLength(1);
+
+    const other = await newAsset(sessions.designer, study.projectId, { kind: 'site', siteKind: 'link-box-group', code: code('LBX-02'), name: 'Link boxes two (invented)', ownerStandard: std.ownerStandard });
+    const edit = await json(await send(sessions.designer, 'PATCH', `/api/assets/${other.id}`, { code: lower }), 422);
+    expect(edit.fields).toEqual([{ field: 'code', message: expect.stringContaining(`as ${code('LBX-01')} (Link boxes upper (invented))`) }]);
+    expect((await detail(other.id)).asset.code).toBe(code('LBX-02'));
+    // The same code exactly: named too, by the asset's name.
+    expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${other.id}`, { code: code('LBX-01') }), 422)).fields[0].message).toBe(`Code ${code('LBX-01')} is already used in this project by Link boxes upper (invented).`);
+
+    expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${upper.id}`, { code: lower }), 200)).code).toBe(lower);
   });
 });
 

@@ -6,7 +6,8 @@ type Crossing = 'none' | 'middle' | 'joints';
 
 /**
  * Where ECC `i` crosses to its mirror position: nowhere, at the middle of its run (by
- * chainage), or at joints inside its run, ticked one by one.
+ * chainage), or at joints inside its run, ticked one by one. With no joint ticked it crosses
+ * nowhere (the schema stores it as not transposed), and the form says so beside the choice.
  */
 export default function EccCrossings({ i }: { i: number }) {
   const { watch, setValue } = useFormContext();
@@ -37,12 +38,18 @@ export default function EccCrossings({ i }: { i: number }) {
         <select aria-label={`Transposition of ECC ${id}`} value={how} onChange={(e) => choose(e.target.value as Crossing)} className="mt-0.5 block rounded border border-rule px-1 py-0.5">
           <option value="none">not transposed</option>
           <option value="middle">at the middle of its run</option>
-          <option value="joints">at joints I choose</option>
+          {/* A run of one section has no joint inside it to cross at; its choices are the middle or none. */}
+          <option value="joints" disabled={inner.length === 0 && how !== 'joints'}>{inner.length === 0 ? 'at joints I choose (no joint inside its run)' : 'at joints I choose'}</option>
         </select>
       </label>
       {how === 'joints' && (
         <div className="mt-1 flex flex-wrap gap-2" role="group" aria-label={`Transposition joints of ECC ${id}`}>
-          {inner.length === 0 && <span className="text-ink-soft">The run has no joint inside it: give it more than one section.</span>}
+          {inner.length === 0 && <span className="text-ink-soft">The run has no joint inside it: choose &quot;at the middle of its run&quot;, or run the ECC along more than one section.</span>}
+          {!joints?.length && (
+            <span className="text-ink-soft" data-testid={`ecc-${i}-no-crossing`}>
+              No joint ticked: the ECC is saved and calculated as not transposed.
+            </span>
+          )}
           {inner.map(([j, label]) => (
             <label key={j} className="flex items-center gap-1">
               <input type="checkbox" aria-label={`ECC ${id} transposed at J${j}`} checked={(joints ?? []).includes(j)} onChange={(e) => toggle(j, e.target.checked)} /> {label}

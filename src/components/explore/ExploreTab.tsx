@@ -3,9 +3,14 @@ import { Bar, BarChart, CartesianGrid, Legend, Line, LineChart, ReferenceLine, R
 import type { RevisionDetail } from '../../lib/queries/revisions.queries';
 import type { Appraisal, SweepInput, Tornado } from '../../lib/calc/explore';
 import type { PlacementResult, SweepResult } from '../../lib/explore/run-exploration';
-import { api } from '../../lib/queries/api-client';
+import { api, ApiError } from '../../lib/queries/api-client';
+import { readNumber } from '../../lib/paste/read-number';
+import { SWEEP_LIMITS, gridPointCount } from '../../lib/calc/explore/sweep-limits';
+import { explorationRequestSchema } from '../../lib/schemas/exploration.schema';
 import { formatNumber } from '../../lib/format';
 import { Button, Caution, ErrorNote } from '../ui/parts';
+import { FormField } from '../ui/FormField';
+import { issuesAsFields, placementFieldErrors, sweepFieldErrors, tornadoFieldErrors } from './explore-field-words';
 import { useExploration, type ExplorationRow } from './use-exploration';
 import { sweepCurves, sweepGrid } from '../../lib/explore/sweep-series';
 
@@ -188,8 +193,34 @@ function SweepGridTable({ result, criterion, unit }: { result: SweepResult; crit
   );
 }
 
+/** A run the server refused field by field: its fields go beside the form's own, so no note lists them again. */
+const refusedFields = (error: unknown) => (error instanceof ApiError && error.fields.length ? error.fields : null);
+
+/** Under a form whose run was refused: the fields say why, or the refusal itself when it names none. */
+const RefusalNote = ({ error }: { error: unknown }) => (refusedFields(error) ? <p role="alert" className="text-sm text-fail">The run was refused: see the fields marked.</p> : <ErrorNote error={error} />);
+
+/** Text typed as a number (decimal point or comma); empty or unreadable is NaN, which the schema names. */
+const typedNumber = (text: string) => {
+  const r = readNumber(text);
+  return 'value' in r ? r.value : NaN;
+};
+
 /** The axis of a sweep from the form's text fields. */
-const axisOf = (key: string, from: string, to: string, points: string) => ({ input: INPUTS.find((i) => i.key === key)!.input, fromValue: Number(from), toValue: Number(to), points: Number(points) });
+const axisOf = (key: string, from: string, to: string, points: string) => ({ input: INPUTS.find((i) => i.key === key)!.input, fromValue: typedNumber(from), toValue: typedNumber(to), points: typedNumber(points) });
+
+const control = 'ml-1 w-24 border border-rule px-1';
+
+/** The grid size as it is typed, and a warning when the server would refuse it. */
+function GridCount({ total, error }: { total: number; error?: string }) {
+  if (error) return <span className="text-sm text-fail" data-testid="sweep-grid-count">{error}</span>;
+  if (!Number.isFinite(total) || total <= 0) return null;
+  const over = total > SWEEP_LIMITS.maxPoints;
+  return (
+    <span role={over ? 'alert' : undefined} className={over ? 'text-sm text-fail' : 'text-xs text-ink-soft'} data-testid="sweep-grid-count">
+      {over ? `${total.toLocaleString('en-GB')} grid points: over the limit of ${SWEEP_LIMITS.maxPoints.toLocaleString('en-GB')}; use fewer points.` : `${total.toLocaleString('en-GB')} grid points.`}
+    </span>
+  );
+}
 
 function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
   const job = useExploration<SweepResult>(revisionId);
@@ -202,13 +233,23 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
   const [from2, setFrom2] = useState(String(INPUTS[5].from));
   const [to2, setTo2] = useState(String(INPUTS[5].to));
   const [points2, setPoints2] = useState('5');
+  const [formErrors, setFormErrors] = useState<Record<string, string>>({});
   const pick = (k: string, setK: (v: string) => void, setF: (v: string) => void, setT: (v: string) => void) => {
     const n = INPUTS.find((i) => i.key === k)!;
     setK(n.key);
     setF(String(n.from));
     setT(String(n.to));
   };
-  const totalPoints = Number(points) * (withSecond ? Number(points2) : 1);
+  const axes = [axisOf(key, from, to, points), ...(withSecond ? [axisOf(key2, from2, to2, points2)] : [])];
+  const totalPoints = gridPointCount(axes);
+  // The server's refusal of a run, by field, beside the fields as the form's own are.
+  const refused = refusedFields(job.error);
+  const errors = { ...formErrors, ...(refused ? sweepFieldErrors(refused) : {}) };
+  const field = (label: string, ariaLabel: string, path: string, value: string, set: (v: string) => void) => (
+    <FormField className="text-sm" label={label} error={errors[path]}>
+      {(c) => <input {...c} aria-label={ariaLabel} value={value} onChange={(e) => set(e.target.value)} className={control} />}
+    </FormField>
+  );
   return (
     <section className="space-y-3" aria-labelledby="sweep-h">
       <h2 id="sweep-h" className="text-lg font-semibold">Sensitivity sweep</h2>
@@ -216,34 +257,41 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
         <form
           aria-label="Sweep settings"
           className="space-y-2"
+          noValidate
           onSubmit={(e) => {
             e.preventDefault();
-            job.start({ kind: 'sweep', axes: [axisOf(key, from, to, points), ...(withSecond ? [axisOf(key2, from2, to2, points2)] : [])] });
+            // The request schema the server parses with: its refusals show beside the fields before anything is sent.
+            const parsed = explorationRequestSchema.safeParse({ kind: 'sweep', axes });
+            setFormErrors(parsed.success ? {} : sweepFieldErrors(issuesAsFields(parsed.error.issues)));
+            if (parsed.success) void job.start(parsed.data);
           }}
         >
-          <div className="flex flex-wrap items-end gap-2">
-            <label className="text-sm">Input <select aria-label="Input" value={key} onChange={(e) => pick(e.target.value, setKey, setFrom, setTo)} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
-            <label className="text-sm">From <input aria-label="From" value={from} onChange={(e) => setFrom(e.target.value)} className="w-24 border border-rule px-1" /></label>
-            <label className="text-sm">To <input aria-label="To" value={to} onChange={(e) => setTo(e.target.value)} className="w-24 border border-rule px-1" /></label>
-            <label className="text-sm">Points <input aria-label="Points" value={points} onChange={(e) => setPoints(e.target.value)} className="w-20 border border-rule px-1" /></label>
+          <div className="flex flex-wrap items-start gap-2">
+            <FormField className="text-sm" label="Input" error={errors['axes.0.input']}>
+              {(c) => <select {...c} aria-label="Input" value={key} onChange={(e) => pick(e.target.value, setKey, setFrom, setTo)} className="ml-1 border border-rule">{INPUTS.map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select>}
+            </FormField>
+            {field('From', 'From', 'axes.0.fromValue', from, setFrom)}
+            {field('To', 'To', 'axes.0.toValue', to, setTo)}
+            {field('Points', 'Points', 'axes.0.points', points, setPoints)}
           </div>
           <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={withSecond} onChange={(e) => setWithSecond(e.target.checked)} /> Vary a second input (one curve per value)</label>
           {withSecond && (
-            <div className="flex flex-wrap items-end gap-2">
-              <label className="text-sm">Second input <select aria-label="Second input" value={key2} onChange={(e) => pick(e.target.value, setKey2, setFrom2, setTo2)} className="ml-1 border border-rule">{INPUTS.filter((i) => i.key !== key).map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select></label>
-              <label className="text-sm">From <input aria-label="Second from" value={from2} onChange={(e) => setFrom2(e.target.value)} className="w-24 border border-rule px-1" /></label>
-              <label className="text-sm">To <input aria-label="Second to" value={to2} onChange={(e) => setTo2(e.target.value)} className="w-24 border border-rule px-1" /></label>
-              <label className="text-sm">Points <input aria-label="Second points" value={points2} onChange={(e) => setPoints2(e.target.value)} className="w-20 border border-rule px-1" /></label>
-              {key2 === key && <span className="text-sm text-fail">Pick an input other than the first.</span>}
+            <div className="flex flex-wrap items-start gap-2">
+              <FormField className="text-sm" label="Second input" error={errors['axes.1.input'] ?? (key2 === key ? 'Second input — which input: pick an input other than the first.' : undefined)}>
+                {(c) => <select {...c} aria-label="Second input" value={key2} onChange={(e) => pick(e.target.value, setKey2, setFrom2, setTo2)} className="ml-1 border border-rule">{INPUTS.filter((i) => i.key !== key).map((i) => <option key={i.key} value={i.key}>{i.label}</option>)}</select>}
+              </FormField>
+              {field('From', 'Second from', 'axes.1.fromValue', from2, setFrom2)}
+              {field('To', 'Second to', 'axes.1.toValue', to2, setTo2)}
+              {field('Points', 'Second points', 'axes.1.points', points2, setPoints2)}
             </div>
           )}
           <div className="flex items-center gap-2">
-            <Button type="submit" disabled={job.row?.status === 'running' || (withSecond && key2 === key)}>Run the sweep</Button>
-            {Number.isFinite(totalPoints) && totalPoints > 0 && <span className="text-xs text-ink-soft">{totalPoints.toLocaleString('en-GB')} grid points.</span>}
+            <Button type="submit" disabled={job.row?.status === 'running' || (withSecond && key2 === key) || totalPoints > SWEEP_LIMITS.maxPoints}>Run the sweep</Button>
+            <GridCount total={totalPoints} error={errors.axes} />
           </div>
         </form>
       )}
-      <ErrorNote error={job.error} />
+      <RefusalNote error={job.error} />
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {job.row?.status === 'done' && job.row.result && (
         <>
@@ -259,18 +307,31 @@ function SweepPanel({ revisionId, canRun }: { revisionId: string; canRun: boolea
 function TornadoPanel({ revisionId, canRun }: { revisionId: string; canRun: boolean }) {
   const job = useExploration<Tornado>(revisionId);
   const [pct, setPct] = useState('20');
+  const [formErrors, setFormErrors] = useState<Record<string, string>>({});
+  const refused = refusedFields(job.error);
+  const errors = { ...formErrors, ...(refused ? tornadoFieldErrors(refused) : {}) };
+  const run = () => {
+    const plusMinusPct = typedNumber(pct);
+    const inputs: SweepInput[] = [{ kind: 'soil-resistivity' }, { kind: 'load-current' }, { kind: 'fault-current' }, { kind: 'earth-resistance', at: 'link-boxes' }, { kind: 'phase-spacing' }, { kind: 'depth' }];
+    const parsed = explorationRequestSchema.safeParse({ kind: 'tornado', inputs: inputs.map((input) => ({ input, plusMinusPct })) });
+    setFormErrors(parsed.success ? {} : tornadoFieldErrors(issuesAsFields(parsed.error.issues)));
+    if (parsed.success) void job.start(parsed.data);
+  };
   const t = job.row?.result;
   const data = (t?.bars ?? []).map((b) => ({ name: b.label, low: b.lowMarginPct === null || t!.baseMarginPct === null ? 0 : b.lowMarginPct - t!.baseMarginPct, high: b.highMarginPct === null || t!.baseMarginPct === null ? 0 : b.highMarginPct - t!.baseMarginPct }));
   return (
     <section className="space-y-3" aria-labelledby="tornado-h">
       <h2 id="tornado-h" className="text-lg font-semibold">Tornado: effect on the worst margin</h2>
       {canRun && (
-        <div className="flex items-end gap-2">
-          <label className="text-sm">± range, % of each input <input value={pct} onChange={(e) => setPct(e.target.value)} className="w-16 border border-rule px-1" /></label>
-          <Button onClick={() => job.start({ kind: 'tornado', inputs: [{ input: { kind: 'soil-resistivity' }, plusMinusPct: Number(pct) }, { input: { kind: 'load-current' }, plusMinusPct: Number(pct) }, { input: { kind: 'fault-current' }, plusMinusPct: Number(pct) }, { input: { kind: 'earth-resistance', at: 'link-boxes' }, plusMinusPct: Number(pct) }, { input: { kind: 'phase-spacing' }, plusMinusPct: Number(pct) }, { input: { kind: 'depth' }, plusMinusPct: Number(pct) }] })}>Rank the inputs</Button>
+        <div className="flex flex-wrap items-start gap-2">
+          <FormField className="text-sm" label="± range, % of each input" error={errors.plusMinusPct}>
+            {(c) => <input {...c} value={pct} onChange={(e) => setPct(e.target.value)} className="ml-1 w-16 border border-rule px-1" />}
+          </FormField>
+          <Button onClick={run} disabled={job.row?.status === 'running'}>Rank the inputs</Button>
+          {errors.form && <span className="text-sm text-fail">{errors.form}</span>}
         </div>
       )}
-      <ErrorNote error={job.error} />
+      <RefusalNote error={job.error} />
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {t && (
         <div className="h-72 w-full" data-testid="tornado-chart">
@@ -295,22 +356,35 @@ function PlacementPanel({ revisionId, canRun }: { revisionId: string; canRun: bo
   const [windows, setWindows] = useState('');
   const [acceptError, setAcceptError] = useState<unknown>(null);
   const p = job.row?.result;
+  const [formErrors, setFormErrors] = useState<Record<string, string>>({});
+  const refused = refusedFields(job.error);
+  const errors = { ...formErrors, ...(refused ? placementFieldErrors(refused) : {}) };
   const parseWindows = () =>
     windows.split(/[;\n]/).map((w) => w.trim()).filter(Boolean).map((w) => {
-      const [fromM, toM] = w.split(/[-–]/).map((x) => Number(x.trim()));
+      const [fromM, toM] = w.split(/[-–]/).map((x) => typedNumber(x ?? ''));
       return { fromM, toM };
     });
+  const run = () => {
+    const parsed = explorationRequestSchema.safeParse({ kind: 'placement', drumLengthM: typedNumber(drum), windows: parseWindows() });
+    setFormErrors(parsed.success ? {} : placementFieldErrors(issuesAsFields(parsed.error.issues)));
+    if (parsed.success) void job.start(parsed.data);
+  };
   return (
     <section className="space-y-3" aria-labelledby="placement-h">
       <h2 id="placement-h" className="text-lg font-semibold">Joint-bay placement</h2>
       {canRun && (
-        <form aria-label="Placement settings" className="flex flex-wrap items-end gap-2" onSubmit={(e) => { e.preventDefault(); job.start({ kind: 'placement', drumLengthM: Number(drum), windows: parseWindows() }); }}>
-          <label className="text-sm">Drum length limit (m) <input aria-label="Drum length limit (m)" value={drum} onChange={(e) => setDrum(e.target.value)} className="w-24 border border-rule px-1" /></label>
-          <label className="text-sm">Windows for joint bays, chainage m (e.g. 400-600; 900-1100; empty: anywhere) <input aria-label="Windows" value={windows} onChange={(e) => setWindows(e.target.value)} className="w-80 border border-rule px-1" /></label>
+        <form aria-label="Placement settings" noValidate className="flex flex-wrap items-start gap-2" onSubmit={(e) => { e.preventDefault(); run(); }}>
+          <FormField className="text-sm" label="Drum length limit (m)" error={errors.drumLengthM}>
+            {(c) => <input {...c} aria-label="Drum length limit (m)" value={drum} onChange={(e) => setDrum(e.target.value)} className="ml-1 w-24 border border-rule px-1" />}
+          </FormField>
+          <FormField className="text-sm" label="Windows for joint bays, chainage m (e.g. 400-600; 900-1100; empty: anywhere)" error={errors.windows}>
+            {(c) => <input {...c} aria-label="Windows" value={windows} onChange={(e) => setWindows(e.target.value)} className="ml-1 w-80 border border-rule px-1" />}
+          </FormField>
           <Button type="submit" disabled={job.row?.status === 'running'}>Suggest joint positions</Button>
+          {errors.form && <span className="text-sm text-fail">{errors.form}</span>}
         </form>
       )}
-      <ErrorNote error={job.error} />
+      <RefusalNote error={job.error} />
       {job.row && <Progress row={job.row} onCancel={job.cancel} canCancel={canRun} />}
       {p && (
         <>

@@ -3,6 +3,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '../../lib/queries/api-client';
 import type { AssetDetail } from '../../lib/queries/register.queries';
 import { Button, ErrorNote } from '../ui/parts';
+import { FormField } from '../ui/FormField';
 
 interface Fields {
   code: string;
@@ -38,19 +39,19 @@ export default function AssetEditForm({ asset, onDone }: { asset: AssetDetail['a
     },
   });
   const input = 'mt-1 block w-full rounded border border-rule bg-panel px-2 py-1';
-  const err = (k: keyof Fields) => form.formState.errors[k] && <span className="text-xs text-fail">{form.formState.errors[k]?.message}</span>;
+  const err = (k: keyof Fields) => form.formState.errors[k]?.message;
   const fieldErrors = save.error instanceof ApiError ? save.error.fields.filter((f) => !(f.field in initial)) : [];
   return (
     <form aria-label="Change the asset" className="grid grid-cols-2 gap-3 rounded border border-rule p-3 text-sm md:grid-cols-3" onSubmit={form.handleSubmit((f) => save.mutate(f))}>
-      <label>Code<input className={input} {...form.register('code')} />{err('code')}</label>
-      <label>Name<input className={input} {...form.register('name')} />{err('name')}</label>
+      <FormField label="Code" error={err('code')}>{(c) => <input {...c} className={input} {...form.register('code')} />}</FormField>
+      <FormField label="Name" error={err('name')}>{(c) => <input {...c} className={input} {...form.register('name')} />}</FormField>
       {asset.kind === 'site' ? (
-        <label>Site kind<select className={input} {...form.register('siteKind')}>{SITE_KINDS.map((k) => <option key={k}>{k}</option>)}</select>{err('siteKind')}</label>
+        <FormField label="Site kind" error={err('siteKind')}>{(c) => <select {...c} className={input} {...form.register('siteKind')}>{SITE_KINDS.map((k) => <option key={k}>{k}</option>)}</select>}</FormField>
       ) : (
-        <label>Route<input className={input} {...form.register('route')} placeholder="from, to, via" />{err('route')}</label>
+        <FormField label="Route" error={err('route')}>{(c) => <input {...c} className={input} {...form.register('route')} placeholder="from, to, via" />}</FormField>
       )}
-      <label>Owner standard<input className={input} {...form.register('ownerStandard')} />{err('ownerStandard')}</label>
-      <label>In service on (UTC date)<input className={input} {...form.register('inServiceOn')} placeholder="YYYY-MM-DD" />{err('inServiceOn')}</label>
+      <FormField label="Owner standard" error={err('ownerStandard')}>{(c) => <input {...c} className={input} {...form.register('ownerStandard')} />}</FormField>
+      <FormField label="In service on (UTC date)" error={err('inServiceOn')}>{(c) => <input {...c} className={input} {...form.register('inServiceOn')} placeholder="YYYY-MM-DD" />}</FormField>
       <div className="col-span-full flex flex-wrap items-center gap-3">
         <Button type="submit" disabled={save.isPending}>Save the changes</Button>
         <Button type="button" tone="plain" onClick={onDone}>Cancel</Button>

@@ -4,6 +4,7 @@ import { api, ApiError } from '../../lib/queries/api-client';
 import { obligationTypesQuery } from '../../lib/queries/register.queries';
 import { withQueryClient } from '../ui/with-query-client';
 import { Busy, Button, ErrorNote } from '../ui/parts';
+import { FormField } from '../ui/FormField';
 
 interface Fields {
   ownerStandard: string;
@@ -48,7 +49,7 @@ function ObligationTypesAdmin() {
     },
   });
   const input = 'mt-1 block w-full rounded border border-rule bg-panel px-2 py-1';
-  const err = (k: keyof Fields) => form.formState.errors[k] && <span className="text-xs text-fail">{form.formState.errors[k]?.message}</span>;
+  const err = (k: keyof Fields) => form.formState.errors[k]?.message;
   return (
     <section className="mt-8 space-y-3" aria-label="Obligation types">
       <h2 className="text-lg font-bold">Obligation types per owner standard</h2>
@@ -73,17 +74,17 @@ function ObligationTypesAdmin() {
         </table>
       )}
       <form className="grid grid-cols-2 gap-3 rounded border border-rule bg-panel p-3 text-sm md:grid-cols-4" onSubmit={form.handleSubmit((f) => add.mutate(f))}>
-        <label>Owner standard<input className={input} {...form.register('ownerStandard')} />{err('ownerStandard')}</label>
-        <label>Obligation<input className={input} {...form.register('name')} />{err('name')}</label>
-        <label>Applies to<select className={input} {...form.register('appliesTo')}><option value="circuit">circuits</option><option value="site">sites</option><option value="both">both</option></select></label>
-        <label>First due, months after service<input className={input} {...form.register('firstDueMonths')} />{err('firstDueMonths')}</label>
-        <label>Interval, months (empty: once)<input className={input} {...form.register('intervalMonths')} />{err('intervalMonths')}</label>
-        <label>Measured quantity (empty: none)<input className={input} {...form.register('quantity')} />{err('quantity')}</label>
-        <label>Unit<input className={input} {...form.register('unit')} /></label>
-        <label>Criterion<select className={input} {...form.register('comparison')}><option value="at-least">at least</option><option value="at-most">at most</option></select></label>
-        <label>Limit<input className={input} {...form.register('limit')} />{err('limit')}</label>
-        <label>Remind, days before<input className={input} {...form.register('remindDaysBefore')} />{err('remindDaysBefore')}</label>
-        <label className="md:col-span-2">Basis (clause of the owner standard)<input className={input} {...form.register('basis')} />{err('basis')}</label>
+        <FormField label="Owner standard" error={err('ownerStandard')}>{(c) => <input {...c} className={input} {...form.register('ownerStandard')} />}</FormField>
+        <FormField label="Obligation" error={err('name')}>{(c) => <input {...c} className={input} {...form.register('name')} />}</FormField>
+        <FormField label="Applies to">{(c) => <select {...c} className={input} {...form.register('appliesTo')}><option value="circuit">circuits</option><option value="site">sites</option><option value="both">both</option></select>}</FormField>
+        <FormField label="First due, months after service" error={err('firstDueMonths')}>{(c) => <input {...c} className={input} {...form.register('firstDueMonths')} />}</FormField>
+        <FormField label="Interval, months (empty: once)" error={err('intervalMonths')}>{(c) => <input {...c} className={input} {...form.register('intervalMonths')} />}</FormField>
+        <FormField label="Measured quantity (empty: none)" error={err('quantity')}>{(c) => <input {...c} className={input} {...form.register('quantity')} />}</FormField>
+        <FormField label="Unit">{(c) => <input {...c} className={input} {...form.register('unit')} />}</FormField>
+        <FormField label="Criterion">{(c) => <select {...c} className={input} {...form.register('comparison')}><option value="at-least">at least</option><option value="at-most">at most</option></select>}</FormField>
+        <FormField label="Limit" error={err('limit')}>{(c) => <input {...c} className={input} {...form.register('limit')} />}</FormField>
+        <FormField label="Remind, days before" error={err('remindDaysBefore')}>{(c) => <input {...c} className={input} {...form.register('remindDaysBefore')} />}</FormField>
+        <FormField className="md:col-span-2" label="Basis (clause of the owner standard)" error={err('basis')}>{(c) => <input {...c} className={input} {...form.register('basis')} />}</FormField>
         <div className="col-span-full"><Button type="submit" disabled={add.isPending}>Add the obligation type</Button></div>
         {add.error && !(add.error instanceof ApiError && add.error.fields.length) && <div className="col-span-full"><ErrorNote error={add.error} /></div>}
       </form>

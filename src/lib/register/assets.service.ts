@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, ne, notInArray } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, ne, notInArray, sql } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { AppServices } from '../services';
 import type { SessionUser } from '../auth/roles';
@@ -39,6 +39,24 @@ export function refuseRemoved<A extends { code: string; removedAt: Date | null }
 
 export const projectOfAsset = async (db: Database, assetId: string) => (await loadAsset(db, assetId)).projectId;
 
+/**
+ * The asset in the register that already holds `code` in the project, compared without regard to
+ * case as the unique index does (`assetId` itself excepted, so an asset may change its own case).
+ */
+async function holderOfCode(tx: Database, projectId: string, code: string, assetId?: string) {
+  const [holder] = await tx
+    .select({ code: assets.code, name: assets.name })
+    .from(assets)
+    .where(and(eq(assets.projectId, projectId), sql`lower(${assets.code}) = lower(${code})`, isNull(assets.removedAt), assetId ? ne(assets.id, assetId) : undefined));
+  return holder;
+}
+
+/** The field error for a code another asset in the register holds, naming that asset. */
+const codeTaken = (code: string, holder: { code: string; name: string }) =>
+  new AppError('InvalidInput', undefined, [
+    { field: 'code', message: holder.code === code ? `Code ${code} is already used in this project by ${holder.name}.` : `Code ${code} is already used in this project as ${holder.code} (${holder.name}): codes are the same whatever their case.` },
+  ]);
+
 /** Adds a circuit or site to a project, owing every obligation its owner standard sets. */
 export async function createAsset(s: AppServices, actor: SessionUser, projectId: string, body: z.output<typeof newAssetSchema>) {
   return inTransaction(s.pool, async (tx) => {
@@ -47,7 +65,11 @@ export async function createAsset(s: AppServices, actor: SessionUser, projectId:
       .values({ projectId, kind: body.kind, siteKind: body.kind === 'site' ? body.siteKind : null, code: body.code, name: body.name, route: body.route, ownerStandard: body.ownerStandard, inServiceOn: body.inServiceOn, createdBy: actor.id })
       .onConflictDoNothing()
       .returning();
-    if (!asset) throw new AppError('InvalidInput', undefined, [{ field: 'code', message: `Code ${body.code} is already used in this project.` }]);
+    if (!asset) {
+      // The only unique key an insert can meet is the code's; its holder may have been removed since.
+      const holder = await holderOfCode(tx, projectId, body.code);
+      throw holder ? codeTaken(body.code, holder) : new AppError('Conflict', `Code ${body.code} was in use a moment ago: try again.`, [{ field: 'code', message: `Code ${body.code} was in use a moment ago: try again.` }]);
+    }
     await refreshStanding(tx, asset);
     await appendAudit(tx, { actorId: actor.id, type: 'asset.created', projectId, detail: { assetId: asset.id, code: asset.code, kind: asset.kind, name: asset.name } });
     return asset;
@@ -108,8 +130,8 @@ export async function editAsset(s: AppServices, actor: SessionUser, assetId: str
     for (const key of EDITABLE) if (body[key] !== undefined && body[key] !== before[key]) Object.assign(changes, { [key]: body[key] });
     if (!Object.keys(changes).length) return before;
     if (changes.code) {
-      const [taken] = await tx.select({ id: assets.id }).from(assets).where(and(eq(assets.projectId, before.projectId), eq(assets.code, changes.code), isNull(assets.removedAt), ne(assets.id, assetId)));
-      if (taken) throw new AppError('InvalidInput', undefined, [{ field: 'code', message: `Code ${changes.code} is already used in this project.` }]);
+      const holder = await holderOfCode(tx, before.projectId, changes.code, assetId);
+      if (holder) throw codeTaken(changes.code, holder);
     }
     const [after] = await tx.update(assets).set(changes).where(eq(assets.id, assetId)).returning();
     if (changes.ownerStandard !== undefined) {

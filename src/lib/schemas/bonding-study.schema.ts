@@ -174,8 +174,15 @@ export const eccSchema = z.strictObject({
   /**
    * Or: the joints (route joint numbers, strictly inside the ECC's run) where it crosses to the
    * mirror position; each further crossing swaps it back. Absent in studies before it existed.
+   * An empty list crosses nowhere (the calculation always read it so): it is kept as absent, so
+   * the form, the record and the comparisons all say "not transposed" and stored studies holding
+   * an empty list read and calculate exactly as they did.
    */
-  transposedAtJoints: z.array(z.number({ error: 'A transposition joint must be a joint number.' }).int('A transposition joint must be a whole joint number.').nonnegative('Joint numbers start at 0.')).max(L.sections, atMost(L.sections, 'transposition joints')).optional(),
+  transposedAtJoints: z
+    .array(z.number({ error: 'A transposition joint must be a joint number.' }).int('A transposition joint must be a whole joint number.').nonnegative('Joint numbers start at 0.'))
+    .max(L.sections, atMost(L.sections, 'transposition joints'))
+    .transform((joints) => (joints.length ? joints : undefined))
+    .optional(),
   /** For the adiabatic check of its fault current; no check without it. */
   crossSectionMm2: positive('ECC cross-section').max(5000).optional(),
   material: z.enum(['copper', 'aluminium']).default('copper'),

@@ -1,8 +1,9 @@
 import { z } from 'zod';
 import './plain-messages';
+import { SWEEP_LIMITS, gridPointCount } from '../calc/explore/sweep-limits';
 
-// What a designer asks of the exploration endpoints. Grid sizes are checked again by the core
-// (checkSweep), which names the limit; here only the shape and the obvious ranges.
+// What a designer asks of the exploration endpoints: the shape, the obvious ranges and the grid
+// size (the core's own limits, checked again by checkSweep against the study).
 
 const positive = (what: string) => z.number({ error: `${what} must be a number.` }).positive(`${what} must be greater than zero.`);
 
@@ -25,7 +26,11 @@ export const sweepAxisSchema = z
     input: sweepInputSchema,
     fromValue: positive('The range start'),
     toValue: positive('The range end'),
-    points: z.number({ error: 'Points must be a number.' }).int('Points must be a whole number.').min(1, 'Give at least one point.'),
+    points: z
+      .number({ error: 'Points must be a number.' })
+      .int('Points must be a whole number.')
+      .min(1, 'Give at least one point.')
+      .max(SWEEP_LIMITS.maxPointsPerAxis, `At most ${SWEEP_LIMITS.maxPointsPerAxis} points along one input.`),
   })
   .refine((a) => a.toValue >= a.fromValue, { message: 'The range must end at or above its start.', path: ['toValue'] });
 
@@ -33,7 +38,19 @@ export const explorationRequestSchema = z.discriminatedUnion(
   'kind',
   [
     z.strictObject({ kind: z.literal('appraisal') }),
-    z.strictObject({ kind: z.literal('sweep'), axes: z.array(sweepAxisSchema).min(1, 'Sweep one or two inputs.').max(2, 'Sweep one or two inputs.') }),
+    z.strictObject({
+      kind: z.literal('sweep'),
+      axes: z
+        .array(sweepAxisSchema)
+        .min(1, 'Sweep one or two inputs.')
+        .max(SWEEP_LIMITS.maxAxes, 'Sweep one or two inputs.')
+        .check(
+          z.superRefine((axes, ctx) => {
+            const total = gridPointCount(axes);
+            if (total > SWEEP_LIMITS.maxPoints) ctx.addIssue({ code: 'custom', message: `A sweep of ${total.toLocaleString('en-GB')} grid points is over the limit of ${SWEEP_LIMITS.maxPoints.toLocaleString('en-GB')}; use fewer points.` });
+          }),
+        ),
+    }),
     z.strictObject({
       kind: z.literal('tornado'),
       inputs: z.array(z.strictObject({ input: sweepInputSchema, plusMinusPct: positive('The ± range').max(99, 'The ± range must stay below 100 %.') })).min(1, 'Give at least one input.').max(12, 'At most 12 inputs.'),

@@ -24,7 +24,7 @@ export const newAssetSchema = z
  * and a site's system data would not fit the other kind): remove it and add a new one instead.
  */
 export const assetEditSchema = z
-  .object({
+  .strictObject({
     kind: z.undefined({ error: 'An asset stays a circuit or a site: remove it and add a new one instead.' }).optional(),
     siteKind: z.enum(['substation', 'link-box-group', 'pipeline', 'fence', 'other'], { error: 'Choose a kind of site from the list.' }).optional(),
     code: text('a code', 30).optional(),
@@ -33,7 +33,8 @@ export const assetEditSchema = z
     ownerStandard: text('the owner standard', 100).optional(),
     inServiceOn: isoDate('In service on').nullable().optional(),
   })
-  .refine((a) => Object.values(a).some((v) => v !== undefined), { path: ['name'], message: 'Change at least one field.' });
+  // Only once every key is known and valid: an unknown key is named on its own, not taken for an empty change.
+  .refine((a) => Object.values(a).some((v) => v !== undefined), { path: ['name'], message: 'Change at least one field.', when: (payload) => payload.issues.length === 0 });
 
 /** A change to a study link: the circuit in the study, or the route end of a site (null clears it). */
 export const studyLinkEditSchema = z

@@ -33,6 +33,18 @@ export function errorResponse(err: unknown): Response {
   );
 }
 
+/**
+ * A zod failure as field errors. A strict object reports unknown keys as one issue on the object
+ * itself; each key becomes its own field, so the error names what to remove or respell.
+ */
+export function issueFields(error: z.ZodError, root: string): Array<{ field: string; message: string }> {
+  return error.issues.flatMap((i) =>
+    i.code === 'unrecognized_keys'
+      ? i.keys.map((key) => ({ field: [...i.path, key].join('.'), message: `Unknown field "${key}": check the spelling, or leave it out.` }))
+      : [{ field: i.path.join('.') || root, message: i.message }],
+  );
+}
+
 /** Parses a JSON body with a zod schema; every failing field is named in the error. */
 export async function parseBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
   let raw: unknown;
@@ -45,11 +57,7 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   if (unstorable.length) throw new AppError('InvalidInput', undefined, unstorable);
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
-    throw new AppError(
-      'InvalidInput',
-      undefined,
-      parsed.error.issues.map((i) => ({ field: i.path.join('.') || '(body)', message: i.message })),
-    );
+    throw new AppError('InvalidInput', undefined, issueFields(parsed.error, '(body)'));
   }
   return parsed.data;
 }
@@ -57,6 +65,6 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
 /** Parses a URL's query parameters with a zod schema; every failing parameter is named. */
 export function parseQuery<S extends z.ZodType>(url: URL, schema: S): z.output<S> {
   const parsed = schema.safeParse(Object.fromEntries(url.searchParams));
-  if (!parsed.success) throw new AppError('InvalidInput', undefined, parsed.error.issues.map((i) => ({ field: i.path.join('.') || '(query)', message: i.message })));
+  if (!parsed.success) throw new AppError('InvalidInput', undefined, issueFields(parsed.error, '(query)'));
   return parsed.data;
 }

@@ -3,6 +3,7 @@ import { type Complex as MathComplex, abs, add, complex, divide, multiply } from
 import { bondingStudySchema, type BondingStudyInput } from '../../../src/lib/schemas/bonding-study.schema';
 import { calculateBondingStudy } from '../../../src/lib/calc/bonding/solve-bonding';
 import { checkBondingStudy } from '../../../src/lib/calc/bonding/study-checks';
+import { eccCrossingsText } from '../../../src/lib/records/record-inputs';
 import { decimals, referenceValues, relative } from '../../helpers/validation';
 
 // ECC transposition points: the joints where an ECC crosses to its mirror position. Checked
@@ -120,5 +121,24 @@ describe('ECC transposition points (docs/methods.md §4.4)', () => {
     expect(parsed.bondingLeadMilliohm).toEqual({ r: 0, x: 0 });
     expect(checkBondingStudy(parsed)).toEqual([]);
     expect(bondingStudySchema.parse(parsed)).toEqual(parsed);
+  });
+});
+
+describe('an ECC set to cross "at joints I choose" with no joint ticked', () => {
+  // The study form stores the choice as a list of joints; on a one-section run there is no joint
+  // inside the run to tick, so the list comes empty. It crosses nowhere, and says so everywhere.
+  it('on a one-section run is stored as not transposed, worded "none", and calculates as not transposed', () => {
+    const ticked = bondingStudySchema.parse(study([900], { transposedAtJoints: [] }));
+    const plain = bondingStudySchema.parse(study([900], {}));
+    expect('transposedAtJoints' in ticked.eccs[0] && ticked.eccs[0].transposedAtJoints !== undefined).toBe(false);
+    expect(JSON.parse(JSON.stringify(ticked))).toEqual(JSON.parse(JSON.stringify(plain)));
+    expect(eccCrossingsText(ticked, ticked.eccs[0])).toBe('none');
+    expect(calculateBondingStudy(ticked)).toEqual(calculateBondingStudy(plain));
+    // Not transposed over 900 m: the closed form of EC-2 [derived: closed form, as above].
+    expect(eccCurrentA(study([900], { transposedAtJoints: [] }))).toBeCloseTo(closedFormEccCurrentA([{ lengthM: 900, mirrored: false }]), 6);
+  });
+
+  it('a ticked joint still crosses there', () => {
+    expect(bondingStudySchema.parse(study([450, 450], { transposedAtJoints: [1] })).eccs[0].transposedAtJoints).toEqual([1]);
   });
 });

@@ -2,6 +2,7 @@ import type { BondingStudy, StudyCase } from '../../schemas/bonding-study.schema
 import type { LimitSet } from '../../schemas/limit-set.schema';
 import { ExploreError } from './errors';
 import { evaluateStudy, type CheckedQuantity } from './evaluate';
+import { SWEEP_LIMITS, gridPointCount } from './sweep-limits';
 
 // Sensitivity sweeps: one or two inputs over a grid, every case recomputed at each point.
 // Each point is the base study with the swept inputs set, calculated exactly as a single
@@ -24,8 +25,7 @@ export interface SweepAxis {
   points: number;
 }
 
-/** Largest grid: at some 10 ms a point on the reference large route, 1,000 points is about 10 s of one core. */
-export const SWEEP_LIMITS = { maxPoints: 1000, maxPointsPerAxis: 200, maxAxes: 2 } as const;
+export { SWEEP_LIMITS } from './sweep-limits';
 
 export function inputLabel(input: SweepInput): string {
   switch (input.kind) {
@@ -71,7 +71,7 @@ export function checkSweep(study: BondingStudy, axes: SweepAxis[]): number {
     if (a.input.kind === 'fault-current' && baseFaultA(study) <= 0) throw new ExploreError('The study has no fault case to scale.', `${f}.input`);
   });
   if (axes.length === 2 && JSON.stringify(axes[0].input) === JSON.stringify(axes[1].input)) throw new ExploreError('Sweep two different inputs.', 'axes.1.input');
-  const total = axes.reduce((n, a) => n * a.points, 1);
+  const total = gridPointCount(axes);
   if (total > SWEEP_LIMITS.maxPoints) {
     throw new ExploreError(`A sweep of ${total.toLocaleString('en-GB')} grid points is over the limit of ${SWEEP_LIMITS.maxPoints.toLocaleString('en-GB')}; use fewer points.`, 'axes');
   }

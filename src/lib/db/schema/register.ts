@@ -33,8 +33,9 @@ export const assets = pgTable(
     removedAt: timestamp('removed_at', { withTimezone: true }),
     removedBy: uuid('removed_by').references(() => users.id),
   },
-  // A removed asset's code may be given to a new one: codes are unique among the assets in the register.
-  (t) => [uniqueIndex('assets_project_code_live_idx').on(t.projectId, t.code).where(sql`${t.removedAt} is null`), index('assets_code_idx').on(t.code, t.id)],
+  // A removed asset's code may be given to a new one: codes are unique among the assets in the
+  // register, whatever their case ("LB-01" and "lb-01" would be read as one asset on site and on paper).
+  (t) => [uniqueIndex('assets_project_code_ci_live_idx').on(t.projectId, sql`lower(${t.code})`).where(sql`${t.removedAt} is null`), index('assets_code_idx').on(t.code, t.id)],
 );
 
 /**

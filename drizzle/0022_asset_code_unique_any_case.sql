@@ -1,0 +1,2 @@
+DROP INDEX "assets_project_code_live_idx";--> statement-breakpoint
+CREATE UNIQUE INDEX "assets_project_code_ci_live_idx" ON "assets" USING btree ("project_id",lower("code")) WHERE "assets"."removed_at" is null;
