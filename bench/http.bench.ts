@@ -32,8 +32,8 @@ async function seedStudies(db: pg.Client) {
       select $1, 'K' || lpad(n::text, 5, '0'), 'Load study ' || n || ' (generated for the benchmark)', 'bonding', $2, $3 from generate_series(1, ${STUDIES}) n
       returning id
     )
-    insert into revisions (study_id, number, state, machine_version, inputs, inputs_hash, results, results_inputs_hash, engine_version, limit_set_version_id, designer_id)
-    select made.id, 1, 'draft', t.machine_version, t.inputs, t.inputs_hash, t.results, t.results_inputs_hash, t.engine_version, t.limit_set_version_id, t.designer_id
+    insert into revisions (study_id, number, state, machine_version, inputs, inputs_hash, results, results_check, results_inputs_hash, engine_version, limit_set_version_id, designer_id)
+    select made.id, 1, 'draft', t.machine_version, t.inputs, t.inputs_hash, t.results, t.results_check, t.results_inputs_hash, t.engine_version, t.limit_set_version_id, t.designer_id
     from made, revisions t where t.id = $4`, [template.project_id, template.limit_set_id, template.designer_id, template.id]);
   // Every checklist column but the ids, whatever the schema holds today.
   const { rows: cols } = await db.query(`select column_name from information_schema.columns where table_name = 'checklist_items' and column_name not in ('id', 'revision_id') order by ordinal_position`);

@@ -27,8 +27,6 @@ export type ComputeTask =
   | { task: 'calculate'; studyKind: StudyKind; rawInputs: unknown; limits: LimitSet; reuse?: { storedBytes: Uint8Array; knownHash: string } }
   /** SHA-256 of the canonical JSON of results given as JSON bytes (what a sign-off records). */
   | { task: 'resultsHash'; bytes: Uint8Array }
-  /** Whether stored results (JSON bytes) hash, in compact form, to what a fresh calculation gave. */
-  | { task: 'storedResultsMatch'; storedBytes: Uint8Array; knownHash: string }
   /** Calculate again and give the hashes of the results as stored (compact) and in full. */
   | { task: 'reproduce'; studyKind: StudyKind; rawInputs: unknown }
   /** The route profile of one bonding case, recomputed from the inputs. */
@@ -74,7 +72,6 @@ export type TaskResult<T> = { ok: true; value: T } | { ok: false; error: TaskErr
 export type ComputeOutput = {
   calculate: Calculated;
   resultsHash: string;
-  storedResultsMatch: boolean;
   reproduce: Reproduced;
   profile: CaseResult['profile'] | null;
   record: Uint8Array;
@@ -119,8 +116,6 @@ async function run(t: ComputeTask): Promise<unknown> {
     }
     case 'resultsHash':
       return hashOf(parseBytes(t.bytes));
-    case 'storedResultsMatch':
-      return storedMatches(parseBytes(t.storedBytes), t.knownHash);
     case 'reproduce': {
       const full = calculateStudy(parseStudyInputs(t.rawInputs, t.studyKind));
       return { compactHash: hashOf(compactResults(full)), fullHash: hashOf(full) } satisfies Reproduced;

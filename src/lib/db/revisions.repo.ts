@@ -1,4 +1,4 @@
-import { type Column, and, asc, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
+import { type Column, type SQL, and, asc, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
 import { jsonBytes, rowJson, rowsJson } from './json-select';
 import { cachedResultsBytes, rememberResultsBytes } from './results-bytes';
 import type { Database } from './client';
@@ -33,21 +33,23 @@ export async function loadRevisionScope(db: Database, revisionId: string, { lock
 }
 
 /**
- * What a calculation decides on, in one read: the revision and its study, the results as JSON
- * bytes (null before any calculation) for a worker thread to parse, read from the database
- * (never from `results-bytes`: a calculation checks the stored figures themselves), the id of
- * the study's latest limit set version, and the results hash a fresh calculation of these
- * inputs with this engine gave, if one is recorded.
+ * What a calculation decides on, in one read: the revision and its study, whether its results
+ * are up to date (calculated from these inputs by this engine, with the study's latest limit set
+ * version, and untouched since: `results_check` still hashes them), and the results hash a fresh
+ * calculation of these inputs with this engine gave, if one is recorded. The results themselves
+ * are read only when there is work to do (`storedResultsBytes`).
  */
 export async function loadCalculationScope(db: Database, revisionId: string) {
   assertId(revisionId, 'revision');
   const { results: _results, ...columns } = getTableColumns(revisions);
+  const latestLimitSetVersionId = sql`(select ${limitSetVersions.id} from ${limitSetVersions} where ${limitSetVersions.limitSetId} = ${studies.limitSetId} order by ${limitSetVersions.version} desc limit 1)`;
   const [row] = await db
     .select({
       revision: columns,
       study: studies,
-      resultsBytes: sql<Buffer | null>`convert_to(${revisions.results}::text, 'UTF8')`,
-      latestLimitSetVersionId: sql<string | null>`(select ${limitSetVersions.id} from ${limitSetVersions} where ${limitSetVersions.limitSetId} = ${studies.limitSetId} order by ${limitSetVersions.version} desc limit 1)`,
+      calculated: sql<boolean>`${revisions.results} is not null`,
+      upToDate: sql<boolean>`coalesce(${revisions.resultsInputsHash} = ${revisions.inputsHash} and ${revisions.engineVersion} = ${ENGINE_VERSION}
+        and ${revisions.limitSetVersionId} = ${latestLimitSetVersionId} and ${revisions.resultsCheck} = ${resultsCheckOf(revisions.results)}, false)`,
       knownResultsHash: sql<string | null>`(select ${recomputations.resultsHash} from ${recomputations} where ${recomputations.inputsHash} = ${revisions.inputsHash} and ${recomputations.engineVersion} = ${ENGINE_VERSION})`,
     })
     .from(revisions)
@@ -55,6 +57,15 @@ export async function loadCalculationScope(db: Database, revisionId: string) {
     .where(eq(revisions.id, revisionId));
   if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
   return row;
+}
+
+/** PostgreSQL's hash of a jsonb value, as `revisions.results_check` keeps it. */
+export const resultsCheckOf = (results: SQL | Column) => sql<string>`jsonb_hash_extended(${results}, 0)::text`;
+
+/** A revision's stored results as JSON bytes (null before any calculation), read from the database. */
+export async function storedResultsBytes(db: Database, revisionId: string): Promise<Buffer | null> {
+  const [row] = await db.select({ bytes: sql<Buffer | null>`convert_to(${revisions.results}::text, 'UTF8')` }).from(revisions).where(eq(revisions.id, revisionId));
+  return row?.bytes ?? null;
 }
 export type CalculationScope = Awaited<ReturnType<typeof loadCalculationScope>>;
 

@@ -14,7 +14,7 @@ import { ENGINE_VERSION } from '../calc';
 import { compute } from '../compute/compute-pool';
 import { rememberRecomputation } from './recomputations.repo';
 import { REVISION_MACHINE_VERSION, editableStates, type RevisionState } from '../workflow/revision.machine';
-import { type CalculationScope, latestLimitSetVersion, loadRevisionScope, loadStudyScope } from '../db/revisions.repo';
+import { type CalculationScope, latestLimitSetVersion, loadRevisionScope, loadStudyScope, resultsCheckOf, storedResultsBytes } from '../db/revisions.repo';
 import { checklistRows } from './checklist-rows';
 import { parseStudyInputs } from './study-input';
 import { issuedRevisionOf } from './study-copy.service';
@@ -87,22 +87,21 @@ export async function updateInputs(s: AppServices, actor: SessionUser, revisionI
  * the engine version and inputs hash, and refreshes its checklist. Results already stored for
  * the same inputs hash and engine version are kept when they match the recorded recomputation
  * (`recomputations`): only the limit set is applied again. When the limit set version is the one
- * applied last as well, nothing would change: nothing is written and the answer says `unchanged`.
+ * applied last as well, and the stored figures are untouched, nothing would change: nothing is
+ * written and the answer says `unchanged`.
  */
 export async function calculateRevision(s: AppServices, actor: SessionUser, scope: CalculationScope) {
   // The cheap refusals (state, designer) come first; the calculation runs outside the lock, and
   // the inputs hash under the lock proves the inputs are still the ones calculated (two people
   // calculating the same inputs at once both succeed; an edit in between is a conflict). The
   // results travel as JSON bytes: the request thread never decodes, parses or serialises them.
-  const { revision, study, resultsBytes: storedBytes, knownResultsHash } = scope;
+  const { revision, study, knownResultsHash } = scope;
   const revisionId = revision.id;
   assertEditableBy(actor, revision);
-  const sameInputs = storedBytes !== null && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
-  const reuse = sameInputs && knownResultsHash ? { storedBytes, knownHash: knownResultsHash } : undefined;
-  const upToDate = reuse && revision.limitSetVersionId === scope.latestLimitSetVersionId;
-  if (upToDate && (await compute({ task: 'storedResultsMatch', ...reuse }))) {
-    return { id: revisionId, version: revision.version, engineVersion: revision.engineVersion, inputsHash: revision.inputsHash, unchanged: true };
-  }
+  if (scope.upToDate) return { id: revisionId, version: revision.version, engineVersion: revision.engineVersion, inputsHash: revision.inputsHash, unchanged: true };
+  const sameInputs = scope.calculated && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
+  const storedBytes = sameInputs && knownResultsHash ? await storedResultsBytes(s.db, revisionId) : null;
+  const reuse = storedBytes && knownResultsHash ? { storedBytes, knownHash: knownResultsHash } : undefined;
   const limits = await latestLimitSetVersion(s.db, study.limitSetId);
   const [{ name }] = await s.db.select({ name: limitSets.name }).from(limitSets).where(eq(limitSets.id, study.limitSetId));
   const limitSet = { name, version: limits.version, limits: limits.limits };
@@ -113,7 +112,15 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, scop
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
       .update(revisions)
-      .set({ ...(resultsBytes ? { results: sql`convert_from(${Buffer.from(resultsBytes.buffer, resultsBytes.byteOffset, resultsBytes.length)}::bytea, 'UTF8')::jsonb` } : {}), resultsInputsHash: revision.inputsHash, engineVersion: ENGINE_VERSION, limitSetVersionId: limits.id, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .set({
+        // New figures, or the kept ones (just checked against the recorded recomputation), with their check.
+        ...(resultsBytes ? { results: newResults(resultsBytes), resultsCheck: resultsCheckOf(newResults(resultsBytes)) } : { resultsCheck: resultsCheckOf(revisions.results) }),
+        resultsInputsHash: revision.inputsHash,
+        engineVersion: ENGINE_VERSION,
+        limitSetVersionId: limits.id,
+        version: sql`${revisions.version} + 1`,
+        updatedAt: new Date(),
+      })
       .where(eq(revisions.id, revisionId))
       .returning({ id: revisions.id, version: revisions.version, engineVersion: revisions.engineVersion, inputsHash: revisions.inputsHash });
     if (fresh) await rememberRecomputation(tx, revision.inputsHash, resultsHash);
@@ -137,6 +144,9 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, scop
     return { ...updated, unchanged: false };
   });
 }
+
+/** JSON bytes from a worker as a jsonb value (a bytea parameter: the request thread never decodes them). */
+const newResults = (bytes: Uint8Array) => sql`convert_from(${Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length)}::bytea, 'UTF8')::jsonb`;
 
 const OPEN_STATES: RevisionState[] = ['draft', 'ready_for_check', 'in_check', 'returned', 'checked'];
 

@@ -35,6 +35,12 @@ export const revisions = pgTable(
     inputs: jsonb('inputs').notNull(),
     inputsHash: text('inputs_hash').notNull(),
     results: jsonb('results'),
+    /**
+     * PostgreSQL's 64-bit hash of `results` (jsonb_hash_extended, seed 0) as a calculation wrote
+     * them: a recalculation with nothing changed proves the figures untouched without printing
+     * them. Written only by calculateRevision, never by a trigger.
+     */
+    resultsCheck: text('results_check'),
     resultsInputsHash: text('results_inputs_hash'),
     engineVersion: text('engine_version'),
     limitSetVersionId: uuid('limit_set_version_id').references(() => limitSetVersions.id),

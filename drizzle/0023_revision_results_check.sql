@@ -1,0 +1,1 @@
+ALTER TABLE "revisions" ADD COLUMN "results_check" text;
