@@ -1,4 +1,4 @@
-import { and, eq, isNull, lt, sql } from 'drizzle-orm';
+import { and, eq, gt, isNull, lt, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { memberships, userSessions, users } from '../db/schema';
 import type { ProjectRole } from '../db/schema/projects';
@@ -21,6 +21,23 @@ export async function revokeSession(db: Database, sessionId: string): Promise<vo
   await db.update(userSessions).set({ revokedAt: sql`now()` }).where(and(eq(userSessions.id, sessionId), isNull(userSessions.revokedAt)));
 }
 
+/** The open session's person and their roles per project, prepared once per database handle (it runs on every request). */
+function sessionQuery(db: Database) {
+  return db
+    .select({
+      id: users.id,
+      email: users.email,
+      name: users.name,
+      isAdmin: users.isAdmin,
+      roles: sql<Array<[string, ProjectRole]>>`coalesce((select json_agg(json_build_array(${memberships.projectId}, ${memberships.role})) from ${memberships} where ${memberships.userId} = ${users.id}), '[]'::json)`,
+    })
+    .from(userSessions)
+    .innerJoin(users, eq(users.id, userSessions.userId))
+    .where(and(eq(userSessions.id, sql.placeholder('sid')), eq(userSessions.userId, sql.placeholder('uid')), isNull(userSessions.revokedAt), gt(userSessions.expiresAt, sql`now()`)))
+    .prepare('signed_in_user');
+}
+const sessionQueries = new WeakMap<Database, ReturnType<typeof sessionQuery>>();
+
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
@@ -31,14 +48,12 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  */
 export async function signedInUser(db: Database, claims: SessionClaims | null): Promise<SessionUser | null> {
   if (!claims || !UUID.test(claims.sid) || !UUID.test(claims.uid)) return null;
-  const { rows } = await db.execute<{ id: string; email: string; name: string; is_admin: boolean; roles: Array<[string, ProjectRole]> }>(sql`
-    select u.id, u.email, u.name, u.is_admin,
-      coalesce((select json_agg(json_build_array(m.project_id, m.role)) from ${memberships} m where m.user_id = u.id), '[]'::json) as roles
-    from ${userSessions} s join ${users} u on u.id = s.user_id
-    where s.id = ${claims.sid}::uuid and s.user_id = ${claims.uid}::uuid and s.revoked_at is null and s.expires_at > now()`);
+  let query = sessionQueries.get(db);
+  if (!query) sessionQueries.set(db, (query = sessionQuery(db)));
+  const rows = await query.execute({ sid: claims.sid, uid: claims.uid });
   const [row] = rows;
   if (!row) return null;
   const projectRoles: Record<string, ProjectRole[]> = {};
   for (const [projectId, role] of row.roles) (projectRoles[projectId] ??= []).push(role);
-  return { id: row.id, email: row.email, name: row.name, isAdmin: row.is_admin, projectRoles };
+  return { id: row.id, email: row.email, name: row.name, isAdmin: row.isAdmin, projectRoles };
 }
