@@ -1,18 +1,15 @@
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import pg from 'pg';
 import { afterAll, describe, expect, it } from 'vitest';
-import { createDatabase } from '../../src/lib/db/client';
 import { migrateDatabase } from '../../src/lib/db/migrate';
-import { testEnv } from '../helpers/env';
+import { scratchDatabase } from '../helpers/scratch-database';
 
 // Asset codes unique whatever their case: the migrations meet a database whose register already
 // holds codes that differ only in case. They must stop naming each clash and change nothing,
 // then pass once people have renamed one asset of the pair.
 
-const name = `asset_codes_${process.pid}_${Date.now()}`;
-const adminUrl = testEnv().databaseUrl;
+const scratch = scratchDatabase('asset_codes');
 const CHECK_TAG = 'asset_code_case_clash_check';
 
 /** A copy of drizzle/ whose journal stops before the clash check (the lead may renumber it). */
@@ -28,21 +25,15 @@ function foldersBeforeCheck() {
 }
 
 describe('asset codes unique whatever their case, on a database that already has clashes', () => {
-  const admin = new pg.Client({ connectionString: adminUrl });
   const before = foldersBeforeCheck();
 
   afterAll(async () => {
-    await admin.query(`drop database if exists ${name} with (force)`);
-    await admin.end();
+    await scratch.drop();
     rmSync(before, { recursive: true, force: true });
   });
 
   it('stops naming the clashes and changing nothing; passes once one asset is renamed; then refuses a new clash', async () => {
-    await admin.connect();
-    await admin.query(`create database ${name}`);
-    const url = new URL(adminUrl);
-    url.pathname = `/${name}`;
-    const { db, pool } = createDatabase(url.toString(), 2);
+    const { db, pool } = await scratch.open();
     try {
       await migrateDatabase(db, before);
       const [{ id: userId }] = (await pool.query(`insert into users (email, name) values ('clash@example.test', 'Clash (invented)') returning id`)).rows;

@@ -1,26 +1,14 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import pg from 'pg';
-import { createDatabase } from '../../src/lib/db/client';
 import { migrateDatabase } from '../../src/lib/db/migrate';
-import { testEnv } from '../helpers/env';
+import { scratchDatabase } from '../helpers/scratch-database';
 
-const name = `migrations_${process.pid}_${Date.now()}`;
-const adminUrl = testEnv().databaseUrl;
+const scratch = scratchDatabase('migrations');
 
 describe('migrations', () => {
-  const admin = new pg.Client({ connectionString: adminUrl });
-
-  afterAll(async () => {
-    await admin.query(`drop database if exists ${name} with (force)`);
-    await admin.end();
-  });
+  afterAll(() => scratch.drop());
 
   it('apply on an empty database, and again without change', async () => {
-    await admin.connect();
-    await admin.query(`create database ${name}`);
-    const url = new URL(adminUrl);
-    url.pathname = `/${name}`;
-    const { db, pool } = createDatabase(url.toString(), 2);
+    const { db, pool } = await scratch.open();
     try {
       await migrateDatabase(db);
       await migrateDatabase(db);
