@@ -169,7 +169,9 @@ function walk(delta: Delta, before: unknown, after: unknown, subject: string[], 
     const a = (after as Record<string, unknown> | undefined)?.[key];
     const [name, unit] = fieldName(key);
     if (key === 'transposedAtJoints') {
-      out.push(sentence([...subject, name], `${crossingsText(b, names)} → ${crossingsText(a, names)}`));
+      // An empty list and none read the same ("none"): no sentence for a change nobody could see.
+      const [was, now] = [crossingsText(b, names), crossingsText(a, names)];
+      if (was !== now) out.push(sentence([...subject, name], `${was} → ${now}`));
     } else if (isPlainList(b) && isPlainList(a)) {
       // A list of plain values (the sections of a bonding group) reads best whole.
       out.push(sentence([...subject, name], `${valueText(b)} → ${valueText(a)}`));

@@ -50,6 +50,10 @@ describe('revision comparison in words', () => {
     c.eccs[0].transposedAtJoints = [1];
     expect(describeInputChanges(b, c)).toEqual(['ECC E1 transposition points joint 1, joint bay Mill Lane bay (joint 2) → joint 1', 'joint 2 name Mill Lane → Mill Lane bay']);
     expect(describeInputChanges(c, a)).toContain('joint 2 no longer named Mill Lane bay');
+    // An empty list of crossings is stored as none: the change between them is not worth a sentence.
+    const d = structuredClone(a);
+    d.eccs[0].transposedAtJoints = [];
+    expect(describeInputChanges(d, a)).toEqual([]);
   });
 
   it('finds nothing between equal inputs', () => {
