@@ -49,11 +49,21 @@ describe('the register in the browser', { timeout: 90_000 }, () => {
     const page = await as('approver@sheathwise.example');
     await openAsset(page);
     await expect.poll(() => page.locator(`tr[data-asset="${code}"] [data-status]`).textContent()).toBe('due within 30 days');
-    await page.getByLabel('Earth-fault level (kA)').fill('25');
+    const earthFault = page.getByLabel('Earth-fault level (kA)', { exact: true });
+    await earthFault.fill('25 kA');
     await page.getByLabel('Source of the figures').fill('Network operator letter (invented)');
     await page.getByLabel('Source date (YYYY-MM-DD)').fill('2026-11-01');
     await page.getByRole('button', { name: 'Publish the version' }).click();
-    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Version 1 published' }).textContent()).toContain(`${study.code} rev 1`);
+    // A figure that cannot be read is refused beside its field; sent on, it would read as "not given".
+    await expect.poll(() => earthFault.getAttribute('aria-invalid')).toBe('true');
+    expect(await page.locator(`[id="${await earthFault.getAttribute('aria-describedby')}"]`).textContent()).toBe('“25 kA” is not a number.');
+    expect(await page.getByRole('alert').filter({ hasText: 'Nothing was published' }).count()).toBe(1);
+    // A decimal comma reads as written.
+    await earthFault.fill('25,5');
+    await page.getByRole('button', { name: 'Publish the version' }).click();
+    const published = page.getByRole('status').filter({ hasText: 'Version 1 published' });
+    await expect.poll(() => published.textContent()).toContain(`${study.code} rev 1`);
+    expect(await published.textContent()).toContain('25.5 kA');
     await expect.poll(() => page.locator(`tr[data-asset="${code}"] [data-status]`).textContent()).toBe('needs review');
     await screenshot(page, 'register-needs-review');
   });
@@ -65,7 +75,7 @@ describe('the register in the browser', { timeout: 90_000 }, () => {
     await page.waitForURL(`${appUrl}/studies/${study.studyId}`);
     await hydrated(page);
     const banner = page.getByTestId('needs-review');
-    await expect.poll(() => banner.textContent()).toContain('the site\'s earth-fault level is now 25 kA');
+    await expect.poll(() => banner.textContent()).toContain('the site\'s earth-fault level is now 25.5 kA');
     await page.getByRole('button', { name: 'Start a revision with the new values' }).click();
     await page.getByLabel('Confirm cases.3.earthFault.currentA').check();
     await screenshot(page, 'register-review-revision');
@@ -74,7 +84,7 @@ describe('the register in the browser', { timeout: 90_000 }, () => {
     const revisionId = new URL(page.url()).pathname.split('/').pop()!;
     const detail = await json(await sessions.designer.fetch(`/api/revisions/${revisionId}`), 200);
     expect(detail.revision.number).toBe(2);
-    expect(detail.revision.inputs.cases[3].earthFault.currentA).toBe(25000);
+    expect(detail.revision.inputs.cases[3].earthFault.currentA).toBe(25500);
   });
 
   it('the reminder of the inspection due in five days is in the catcher, with the review notices', async () => {

@@ -47,6 +47,10 @@ describe('audit trail in words', () => {
     inputs.sections[1].lengthM = 520;
     inputs.cableTypes.push({ ...inputs.cableTypes[0], id: 'SPARE-1', name: 'Spare cable' });
     await json(await send(sessions.designer, 'PUT', `/api/revisions/${revisionId}/inputs`, { version: await currentVersion(sessions.designer, revisionId), inputs }), 200);
+    // Saving the same inputs again records nothing: no new version, no empty history entry.
+    const saved = await currentVersion(sessions.designer, revisionId);
+    expect((await json(await send(sessions.designer, 'PUT', `/api/revisions/${revisionId}/inputs`, { version: saved, inputs }), 200)).version).toBe(saved);
+    expect(await currentVersion(sessions.designer, revisionId)).toBe(saved);
     await json(await send(sessions.designer, 'POST', `/api/revisions/${revisionId}/calculate`), 200);
     await drive(sessions, revisionId, [['designer', 'submit'], ['checker', 'startCheck']]);
 
@@ -66,6 +70,7 @@ describe('audit trail in words', () => {
     expect((await bad.json()).fields[0].field).toBe('revisionNumber');
 
     // The input change is stored with its sentences and told without JSON.
+    expect(byRevision.events.filter((e: { type: string }) => e.type === 'revision.inputs-changed')).toHaveLength(1);
     const changed = byRevision.events.find((e: { type: string }) => e.type === 'revision.inputs-changed');
     expect(changed.detail.sentences).toEqual(expect.arrayContaining(['section M1b length 498 m → 520 m', expect.stringMatching(/^cable type SPARE-1 added/)]));
 

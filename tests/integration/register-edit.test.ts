@@ -52,6 +52,12 @@ describe('editing an asset', () => {
     expect(mixed.fields.map((f: { field: string }) => f.field)).toEqual(['voltageKv']);
     expect((await json(await send(sessions.designer, 'PATCH', `/api/assets/${circuit.id}`, {}), 422)).fields).toEqual([{ field: 'name', message: 'Change at least one field.' }]);
     expect((await detail(circuit.id)).asset.name).toBe('Edit circuit (invented)');
+    // Creating refuses an unknown key the same way, and creates nothing.
+    const extra = code('X');
+    const body = { kind: 'circuit', code: extra, name: 'Extra key (invented)', ownerStandard: std.ownerStandard };
+    const refused = await json(await send(sessions.designer, 'POST', `/api/projects/${study.projectId}/assets`, { ...body, colour: 'red' }), 422);
+    expect(refused.fields).toEqual([{ field: 'colour', message: expect.stringContaining('Unknown field "colour"') }]);
+    expect((await json(await send(sessions.designer, 'POST', `/api/projects/${study.projectId}/assets`, body), 201)).id).toBeTruthy();
   });
 
   it('is for designers and approvers of the project', async () => {

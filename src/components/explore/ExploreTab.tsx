@@ -213,11 +213,13 @@ const control = 'ml-1 w-24 border border-rule px-1';
 /** The grid size as it is typed, and a warning when the server would refuse it. */
 function GridCount({ total, error }: { total: number; error?: string }) {
   if (error) return <span className="text-sm text-fail" data-testid="sweep-grid-count">{error}</span>;
-  if (!Number.isFinite(total) || total <= 0) return null;
+  // Only a whole count is a grid; a fraction is refused beside its field on Run.
+  if (!Number.isInteger(total) || total <= 0) return null;
   const over = total > SWEEP_LIMITS.maxPoints;
+  const count = `${total.toLocaleString('en-GB')} grid point${total === 1 ? '' : 's'}`;
   return (
     <span role={over ? 'alert' : undefined} className={over ? 'text-sm text-fail' : 'text-xs text-ink-soft'} data-testid="sweep-grid-count">
-      {over ? `${total.toLocaleString('en-GB')} grid points: over the limit of ${SWEEP_LIMITS.maxPoints.toLocaleString('en-GB')}; use fewer points.` : `${total.toLocaleString('en-GB')} grid points.`}
+      {over ? `${count}: over the limit of ${SWEEP_LIMITS.maxPoints.toLocaleString('en-GB')}; use fewer points.` : `${count}.`}
     </span>
   );
 }

@@ -8,7 +8,7 @@ const isoDate = (what: string) => z.string({ error: `${what}: give a date as YYY
 const text = (what: string, max: number) => z.string({ error: `Give ${what}.` }).trim().min(1, `Give ${what}.`).max(max, `${what[0].toUpperCase()}${what.slice(1)} is at most ${max} characters.`);
 
 export const newAssetSchema = z
-  .object({
+  .strictObject({
     kind: z.enum(['circuit', 'site'], { error: 'Say whether the asset is a circuit or a site.' }),
     siteKind: z.enum(['substation', 'link-box-group', 'pipeline', 'fence', 'other']).optional(),
     code: text('a code', 30),

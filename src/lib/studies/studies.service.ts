@@ -52,21 +52,24 @@ export async function createStudy(s: AppServices, actor: SessionUser, projectId:
   });
 }
 
-function assertEditableBy(actor: SessionUser, revision: { state: RevisionState; designerId: string }) {
-  if (!editableStates.has(revision.state)) throw new AppError('ReadOnly', `The revision is ${revision.state.replace(/_/g, ' ')}: its inputs can no longer change.`);
+function assertEditableBy(actor: SessionUser, revision: { state: RevisionState; designerId: string }, refused = 'its inputs can no longer change') {
+  if (!editableStates.has(revision.state)) throw new AppError('ReadOnly', `The revision is ${revision.state.replace(/_/g, ' ')}: ${refused}.`);
   if (revision.designerId !== actor.id) throw new AppError('Forbidden', 'Only the designer of this revision can change it.');
 }
 
-/** Replaces a revision's inputs; stale writers (another version) get Conflict. */
+/** Replaces a revision's inputs; stale writers (another version) get Conflict; the same inputs again change nothing. */
 export async function updateInputs(s: AppServices, actor: SessionUser, revisionId: string, raw: unknown, expectedVersion: number) {
   const { study } = await loadRevisionScope(s.db, revisionId);
   const inputs = parseStudyInputs(raw, study.kind);
   return withLockedRevision(s, revisionId, async ({ revision }, tx) => {
     assertEditableBy(actor, revision);
     if (revision.version !== expectedVersion) throw new AppError('Conflict');
+    const hash = inputsHash(inputs);
+    // The same inputs again: nothing to record (no new version, no empty history entry).
+    if (hash === revision.inputsHash) return revision;
     const [updated] = await tx
       .update(revisions)
-      .set({ inputs, inputsHash: inputsHash(inputs), version: sql`${revisions.version} + 1`, updatedAt: new Date() })
+      .set({ inputs, inputsHash: hash, version: sql`${revisions.version} + 1`, updatedAt: new Date() })
       .where(eq(revisions.id, revisionId))
       .returning();
     await appendAudit(tx, {
@@ -97,7 +100,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, scop
   // results travel as JSON bytes: the request thread never decodes, parses or serialises them.
   const { revision, study, knownResultsHash } = scope;
   const revisionId = revision.id;
-  assertEditableBy(actor, revision);
+  assertEditableBy(actor, revision, CALCULATE_REFUSED);
   if (scope.upToDate) return { id: revisionId, version: revision.version, engineVersion: revision.engineVersion, inputsHash: revision.inputsHash, unchanged: true };
   const sameInputs = scope.calculated && revision.resultsInputsHash === revision.inputsHash && revision.engineVersion === ENGINE_VERSION;
   const storedBytes = sameInputs && knownResultsHash ? await storedResultsBytes(s.db, revisionId) : null;
@@ -107,7 +110,7 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, scop
   const limitSet = { name, version: limits.version, limits: limits.limits };
   const { inputs, resultsBytes, computed, resultsHash, fresh } = await compute({ task: 'calculate', studyKind: study.kind, rawInputs: revision.inputs, limits: limitSet, reuse });
   return withLockedRevision(s, revisionId, async ({ revision: current }, tx) => {
-    assertEditableBy(actor, current);
+    assertEditableBy(actor, current, CALCULATE_REFUSED);
     if (current.inputsHash !== revision.inputsHash) throw new AppError('Conflict', 'The inputs changed while they were being calculated: calculate again.');
     const existing = await tx.select().from(checklistItems).where(eq(checklistItems.revisionId, revisionId));
     const [updated] = await tx
@@ -144,6 +147,8 @@ export async function calculateRevision(s: AppServices, actor: SessionUser, scop
     return { ...updated, unchanged: false };
   });
 }
+
+const CALCULATE_REFUSED = 'it is not calculated again (its inputs and results stay as they are); start a new revision to change them';
 
 /** JSON bytes from a worker as a jsonb value (a bytea parameter: the request thread never decodes them). */
 const newResults = (bytes: Uint8Array) => sql`convert_from(${Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length)}::bytea, 'UTF8')::jsonb`;
