@@ -20,15 +20,26 @@ describe('design exploration in Chromium', () => {
   });
   afterAll(async () => close?.());
 
-  it('runs a sweep with a progress bar, draws the chart and saves it', async () => {
+  /** The Explore tab's sweep form, opened afresh on the revision. */
+  async function sweepForm() {
     await page.goto(`${appUrl}/revisions/${revisionId}`);
     await hydrated(page);
     await page.getByRole('tab', { name: 'Explore' }).click();
-    const form = page.getByRole('form', { name: 'Sweep settings' });
+    return page.getByRole('form', { name: 'Sweep settings' });
+  }
+
+  /** The form with the largest load current swept from 200 A to 4000 A in `points` points. */
+  async function loadCurrentSweep(points: string) {
+    const form = await sweepForm();
     await form.getByLabel('Input', { exact: true }).selectOption({ label: 'Largest load current (A)' });
     await form.getByLabel('From', { exact: true }).fill('200');
     await form.getByLabel('To', { exact: true }).fill('4000');
-    await form.getByLabel('Points', { exact: true }).fill('200');
+    await form.getByLabel('Points', { exact: true }).fill(points);
+    return form;
+  }
+
+  it('runs a sweep with a progress bar, draws the chart and saves it', async () => {
+    const form = await loadCurrentSweep('200');
     await form.getByRole('button', { name: 'Run the sweep' }).click();
     const progress = page.getByTestId('sweep-progress');
     await progress.waitFor();
@@ -54,14 +65,7 @@ describe('design exploration in Chromium', () => {
     // With the event stream refused, the page follows the run by polling its row instead.
     let refusedStreams = 0;
     await page.route('**/explorations/*/events', (route) => (refusedStreams++, route.abort()));
-    await page.goto(`${appUrl}/revisions/${revisionId}`);
-    await hydrated(page);
-    await page.getByRole('tab', { name: 'Explore' }).click();
-    const form = page.getByRole('form', { name: 'Sweep settings' });
-    await form.getByLabel('Input', { exact: true }).selectOption({ label: 'Largest load current (A)' });
-    await form.getByLabel('From', { exact: true }).fill('200');
-    await form.getByLabel('To', { exact: true }).fill('4000');
-    await form.getByLabel('Points', { exact: true }).fill('10');
+    const form = await loadCurrentSweep('10');
     await form.getByLabel('Vary a second input (one curve per value)').check();
     // The first input is not offered again as the second.
     await expect(form.getByLabel('Second input', { exact: true }).locator('option', { hasText: 'Largest load current (A)' }).count()).resolves.toBe(0);
@@ -98,10 +102,7 @@ describe('design exploration in Chromium', () => {
   it('counts the grid as it is typed, warns over the server limit, and shows a refused field beside it in words', async () => {
     const started: string[] = [];
     page.on('request', (r) => (r.method() === 'POST' && /\/explorations$/.test(r.url()) ? started.push(r.url()) : undefined));
-    await page.goto(`${appUrl}/revisions/${revisionId}`);
-    await hydrated(page);
-    await page.getByRole('tab', { name: 'Explore' }).click();
-    const form = page.getByRole('form', { name: 'Sweep settings' });
+    const form = await sweepForm();
     const run = form.getByRole('button', { name: 'Run the sweep' });
     const count = form.getByTestId('sweep-grid-count');
     await form.getByRole('textbox', { name: 'Points', exact: true }).fill('200');
