@@ -46,6 +46,24 @@ describe('sign in and out in Chromium', () => {
     await page.screenshot({ path: path.join(artifacts, 'home.png') });
   });
 
+  it('keeps the button off until the page runs, so the browser never sends the password itself', async () => {
+    // Before hydration a click would fall through to the browser's own GET, with the password in
+    // the address, and no sign-in. Without JavaScript the page stays as the server sent it.
+    const plain = await launchBrowser({ javaScriptEnabled: false });
+    try {
+      const early = await plain.context.newPage();
+      await early.goto(`${appUrl}/signin`);
+      await expect(early.getByRole('button', { name: 'Sign in' }).isDisabled()).resolves.toBe(true);
+      await expect(early.locator('form[aria-label="Sign in"]').getAttribute('method')).resolves.toBe('post');
+      // The invitation form carries a password and the link's token: the same holds.
+      await early.goto(`${appUrl}/invitation/any-token`);
+      await expect(early.getByRole('button', { name: 'Set my password' }).isDisabled()).resolves.toBe(true);
+      await expect(early.locator('form').getAttribute('method')).resolves.toBe('post');
+    } finally {
+      await plain.close();
+    }
+  });
+
   it('signs out and lands on the sign-in page, with the home page closed again', async () => {
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL(/\/signin/);

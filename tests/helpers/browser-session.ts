@@ -12,6 +12,7 @@ export async function browserAs(email: string, password = DEMO_PASSWORD) {
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
   await page.goto(`${appUrl}/signin`);
+  await hydrated(page);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();

@@ -4,12 +4,13 @@ import path from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 
 /** Debian's Chromium with a fresh profile; never a downloaded browser. */
-export async function launchBrowser(): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
+export async function launchBrowser(options: { javaScriptEnabled?: boolean } = {}): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
   const profile = mkdtempSync(path.join(tmpdir(), 'sheathwise-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     headless: true,
     viewport: { width: 1280, height: 800 },
+    javaScriptEnabled: options.javaScriptEnabled ?? true,
     args: [
       '--headless',
       '--no-sandbox',

@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { acceptInvitationSchema } from '../../lib/schemas/accept-invitation.schema';
+import { useHydrated } from '../ui/use-hydrated';
 
 const formSchema = acceptInvitationSchema
   .extend({ repeat: z.string() })
@@ -13,6 +14,7 @@ type FormValues = z.input<typeof formSchema>;
 
 export default function AcceptInvitationForm({ token }: { token: string }) {
   const [outcome, setOutcome] = useState<{ ok: boolean; text: string } | null>(null);
+  const hydrated = useHydrated();
   const { register, handleSubmit, formState: { errors, isSubmitting } } = useForm<FormValues>({ resolver: zodResolver(formSchema), defaultValues: { token } });
 
   const onSubmit = handleSubmit(async ({ password }) => {
@@ -23,7 +25,7 @@ export default function AcceptInvitationForm({ token }: { token: string }) {
 
   if (outcome?.ok) return <p role="status">{outcome.text} <a className="text-copper underline" href="/signin">Sign in</a></p>;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4">
+    <form method="post" onSubmit={onSubmit} noValidate className="space-y-4">
       <input type="hidden" {...register('token')} />
       <label className="block">
         <span className="text-sm font-semibold">New password</span>
@@ -36,7 +38,7 @@ export default function AcceptInvitationForm({ token }: { token: string }) {
         {errors.repeat && <span className="text-sm text-fail">{errors.repeat.message}</span>}
       </label>
       {outcome && <p role="alert" className="text-sm text-fail">{outcome.text}</p>}
-      <button type="submit" disabled={isSubmitting} className="w-full rounded bg-copper px-4 py-2 font-semibold text-paper hover:bg-copper-dark disabled:opacity-60">
+      <button type="submit" disabled={!hydrated || isSubmitting} className="w-full rounded bg-copper px-4 py-2 font-semibold text-paper hover:bg-copper-dark disabled:opacity-60">
         {isSubmitting ? 'Saving…' : 'Set my password'}
       </button>
     </form>

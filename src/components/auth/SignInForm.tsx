@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'auth-astro/client';
 import { signInSchema, type SignInInput } from '../../lib/schemas/sign-in.schema';
+import { useHydrated } from '../ui/use-hydrated';
 
 const MESSAGES: Record<string, string> = {
   // Worded so that it tells no more than a wrong password does: not whether the account exists,
@@ -14,6 +15,7 @@ const MESSAGES: Record<string, string> = {
 
 export default function SignInForm({ next }: { next: string }) {
   const [failure, setFailure] = useState<string | null>(null);
+  const hydrated = useHydrated();
   const {
     register,
     handleSubmit,
@@ -30,7 +32,8 @@ export default function SignInForm({ next }: { next: string }) {
   });
 
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in">
+    // method="post": should the browser ever submit it itself, the password stays out of the address.
+    <form method="post" onSubmit={onSubmit} noValidate className="space-y-4" aria-label="Sign in">
       <label className="block">
         <span className="text-sm font-semibold">E-mail</span>
         <input
@@ -60,7 +63,7 @@ export default function SignInForm({ next }: { next: string }) {
       )}
       <button
         type="submit"
-        disabled={isSubmitting}
+        disabled={!hydrated || isSubmitting}
         className="w-full rounded bg-copper px-4 py-2 font-semibold text-paper hover:bg-copper-dark disabled:opacity-60"
       >
         {isSubmitting ? 'Signing in…' : 'Sign in'}
