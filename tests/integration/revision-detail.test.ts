@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { sql } from 'drizzle-orm';
+import { type SQL, sql } from 'drizzle-orm';
 import { createDatabase } from '../../src/lib/db/client';
-import { revisionDetail, revisionDetailBytes } from '../../src/lib/db/revisions.repo';
+import { revisionDetail } from '../../src/lib/db/revisions.repo';
+import { revisionDetailBytes } from '../../src/lib/db/revision-detail-bytes';
 import { testEnv } from '../helpers/env';
 import type { HttpSession } from '../helpers/http-session';
 import { demoIds, demoSessions, drive, fixtureInputs, json, readyDraft, send } from '../helpers/workflow-api';
@@ -47,6 +48,47 @@ describe('revision detail as JSON written by the database', () => {
       const { projectId, body } = await revisionDetailBytes(db, id);
       expect(projectId).toBe(expected.project.id);
       expect(JSON.parse(body.toString()), `revision ${id}`).toEqual(expected);
+    }
+  });
+
+  it('answers from memory while nothing it shows has changed, and follows any write to it, by whatever path', async () => {
+    const id = ids[0];
+    const read = async () => (await revisionDetailBytes(db, id)).body;
+    const fresh = async () => JSON.parse(JSON.stringify(await revisionDetail(db, id)));
+    const first = await read();
+    expect(await read()).toBe(first); // the very bytes kept from the first reading
+    const ofRevision = (table: SQL) => sql`(select id from ${table} where revision_id = ${id} order by id limit 1)`;
+    const one = async (query: SQL) => (await db.execute<{ v: string }>(query)).rows[0].v;
+    // The thread was started by the checker, who has not signed; the designer replied and signed the submission.
+    const remarker = await one(sql`select author_id as v from remarks where revision_id = ${id} and parent_id is null`);
+    const signer = await one(sql`select user_id as v from sign_offs where revision_id = ${id}`);
+    expect(await one(sql`select count(*)::text as v from sign_offs where revision_id = ${id} and user_id = ${remarker}`)).toBe('0');
+    const names = (await db.execute<{ id: string; name: string }>(sql`select id, name from users`)).rows;
+    const project = await one(sql`select s.project_id as v from studies s join revisions r on r.study_id = s.id where r.id = ${id}`);
+    const projectName = await one(sql`select name as v from projects where id = ${project}`);
+    // Written behind the application's back, as a migration or an administrator might: no code path raises anything.
+    const writes: [string, SQL][] = [
+      ['the revision', sql`update revisions set updated_at = updated_at + interval '1 second' where id = ${id}`],
+      ['its study', sql`update studies set title = title || ' (renamed)' where id = (select study_id from revisions where id = ${id})`],
+      ['its project', sql`update projects set name = name || ' (renamed)' where id = ${project}`],
+      ['a checklist item', sql`update checklist_items set title = title || ' (reworded)' where id = ${ofRevision(sql`checklist_items`)}`],
+      ['a check value', sql`update check_values set explanation = 'Hand calculation, second sheet' where id = ${ofRevision(sql`check_values`)}`],
+      ['the name beside a remark (of someone who has not signed)', sql`update users set name = name || ' (renamed)' where id = ${remarker}`],
+      ['a remark taken away (the signer\'s reply)', sql`delete from remarks where revision_id = ${id} and parent_id is not null and author_id = ${signer}`],
+      ['the name beside a sign-off (of someone with no remark left)', sql`update users set name = name || ' (renamed)' where id = ${signer}`],
+      ['a remark added', sql`insert into remarks (revision_id, author_id, body) values (${id}, ${remarker}, 'Added directly')`],
+    ];
+    try {
+      for (const [what, write] of writes) {
+        expect((await db.execute(write)).rowCount, what).toBe(1);
+        const body = await read();
+        expect(JSON.parse(body.toString()), `after a write to ${what}`).toEqual(await fresh());
+        expect(await read(), what).toBe(body);
+      }
+    } finally {
+      // Other tests know the demo's people and project by name.
+      for (const { id: userId, name } of names) await db.execute(sql`update users set name = ${name} where id = ${userId} and name <> ${name}`);
+      await db.execute(sql`update projects set name = ${projectName} where id = ${project}`);
     }
   });
 

@@ -1,6 +1,4 @@
 import { type Column, type SQL, and, asc, desc, eq, getTableColumns, inArray, sql } from 'drizzle-orm';
-import { jsonBytes, rowJson, rowsJson } from './json-select';
-import { cachedResultsBytes, rememberResultsBytes } from './results-bytes';
 import type { Database } from './client';
 import { checkValues, checklistItems, limitSetVersions, memberships, projects, recomputations, remarks, revisions, signOffs, studies, users } from './schema';
 import { ENGINE_VERSION } from '../calc';
@@ -99,62 +97,6 @@ export async function userName(db: Database, id: string): Promise<string> {
 export async function revisionDetail(db: Database, revisionId: string) {
   const scope = await loadRevisionScope(db, revisionId);
   return { ...scope, ...(await revisionParts(db, revisionId)) };
-}
-
-/** The revision screen's data as JSON bytes, part by part; the results only when asked for (else null). */
-function detailQuery(db: Database, withResults: boolean) {
-  const ofRevision = <T extends { revisionId: Column }>(t: T) => eq(t.revisionId, revisions.id);
-  return db
-    .select({
-      projectId: projects.id,
-      version: revisions.version,
-      revision: jsonBytes(rowJson(revisions, {}, ['results'])),
-      study: jsonBytes(rowJson(studies)),
-      project: jsonBytes(rowJson(projects)),
-      checklist: jsonBytes(rowsJson(checklistItems, ofRevision(checklistItems), sql`${checklistItems.sortOrder}, ${checklistItems.id}`)),
-      remarks: jsonBytes(rowsJson(remarks, ofRevision(remarks), sql`${remarks.createdAt}, ${remarks.id}`, { authorName: users.name }, sql`join ${users} on ${users.id} = ${remarks.authorId}`)),
-      checkValues: jsonBytes(rowsJson(checkValues, ofRevision(checkValues), sql`${checkValues.createdAt}, ${checkValues.id}`)),
-      signOffs: jsonBytes(rowsJson(signOffs, ofRevision(signOffs), sql`${signOffs.createdAt}, ${signOffs.id}`, { name: users.name }, sql`join ${users} on ${users.id} = ${signOffs.userId}`)),
-      results: withResults ? sql<Buffer | null>`convert_to(${revisions.results}::text, 'UTF8')` : sql<Buffer | null>`null::bytea`,
-    })
-    .from(revisions)
-    .innerJoin(studies, eq(studies.id, revisions.studyId))
-    .innerJoin(projects, eq(projects.id, studies.projectId))
-    .where(eq(revisions.id, sql.placeholder('id')))
-    .prepare(withResults ? 'revision_detail_with_results' : 'revision_detail');
-}
-
-// Prepared once per database handle: building these statements cost more than running them.
-const detailQueries = new WeakMap<Database, { parts: ReturnType<typeof detailQuery>; withResults: ReturnType<typeof detailQuery> }>();
-
-const NO_RESULTS = Buffer.from('null');
-
-/**
- * `revisionDetail` as JSON bytes, with the project's id (to authorise before it is sent). The
- * database writes every part as JSON and the server only joins the bytes: it never parses and
- * re-serialises the results and checklist. The results come from `results-bytes` when this
- * version's are there, else from the database (and are kept there).
- */
-export async function revisionDetailBytes(db: Database, revisionId: string): Promise<{ projectId: string; body: Buffer }> {
-  assertId(revisionId, 'revision');
-  let queries = detailQueries.get(db);
-  if (!queries) detailQueries.set(db, (queries = { parts: detailQuery(db, false), withResults: detailQuery(db, true) }));
-  let [row] = await queries.parts.execute({ id: revisionId });
-  if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
-  let results = cachedResultsBytes(revisionId, row.version);
-  if (!results) {
-    [row] = await queries.withResults.execute({ id: revisionId });
-    if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
-    results = row.results ?? NO_RESULTS;
-    rememberResultsBytes(revisionId, row.version, results);
-  }
-  const text = (t: string) => Buffer.from(t);
-  const body = Buffer.concat([
-    text('{"revision":'), row.revision.subarray(0, -1), text(',"results":'), results,
-    text('},"study":'), row.study, text(',"project":'), row.project, text(',"checklist":'), row.checklist,
-    text(',"remarks":'), row.remarks, text(',"checkValues":'), row.checkValues, text(',"signOffs":'), row.signOffs, text('}'),
-  ]);
-  return { projectId: row.projectId, body };
 }
 
 /** What a revision screen shows beside the revision itself: checklist, remarks, check values, sign-offs. */

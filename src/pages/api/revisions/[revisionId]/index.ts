@@ -2,7 +2,7 @@ import { authorize } from '../../../../lib/server/authorize';
 import { endpoint } from '../../../../lib/server/http';
 import { services } from '../../../../lib/server/services.server';
 import { READERS } from '../../../../lib/server/scope';
-import { revisionDetailBytes } from '../../../../lib/db/revisions.repo';
+import { revisionDetailBytes } from '../../../../lib/db/revision-detail-bytes';
 
 export const GET = endpoint(async ({ locals, params }) => {
   const { db } = await services();
