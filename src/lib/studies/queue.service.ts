@@ -1,51 +1,95 @@
-import { and, desc, eq, inArray, ne, or } from 'drizzle-orm';
+import { type SQL, and, count, desc, eq, gt, inArray, ne, or, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { projects, revisions, studies } from '../db/schema';
+import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
 import type { SessionUser } from '../auth/roles';
 
 /** A revision that waited longer than this in someone's queue is shown as overdue. */
 export const OVERDUE_DAYS = 5;
 
+/** A queue lists this many at a time, those that have waited longest first; its total is given beside. */
+export const QUEUE_PAGE = 20;
+
+/** Totals are counted up to this; past it a queue says "at least" (a queue that long is long enough to say so, and counting ten thousand drafts on every visit is not worth it). */
+export const QUEUE_COUNT_UP_TO = 200;
+
+export const queueRoles = ['designer', 'checker', 'approver'] as const;
+export type QueueRole = (typeof queueRoles)[number];
+
+const LABELS: Record<QueueRole, string> = {
+  designer: 'Your drafts and returned revisions',
+  checker: 'Waiting for your check',
+  approver: 'Waiting for your approval',
+};
+
+/** What puts a revision in the user's queue for a role. */
+function waitingFor(role: QueueRole, userId: string): SQL | undefined {
+  switch (role) {
+    case 'designer':
+      return and(eq(revisions.designerId, userId), inArray(revisions.state, ['draft', 'returned']));
+    case 'checker':
+      return or(and(eq(revisions.state, 'ready_for_check'), ne(revisions.designerId, userId)), and(eq(revisions.state, 'in_check'), eq(revisions.checkerId, userId)));
+    case 'approver':
+      return and(eq(revisions.state, 'checked'), ne(revisions.designerId, userId));
+  }
+}
+
 const rowShape = {
   revisionId: revisions.id,
+  projectId: studies.projectId,
   studyCode: studies.code,
   studyTitle: studies.title,
   projectName: projects.name,
   revisionNumber: revisions.number,
   state: revisions.state,
   updatedAt: revisions.updatedAt,
+  // The position as text keeps the microseconds a Date would drop.
+  position: sql<string>`${revisions.updatedAt}::text`,
 };
 
-/** What waits for the user in each of their roles, and recent activity in their projects. */
-export async function myQueue(db: Database, user: SessionUser) {
-  const inRole = (role: string) => Object.entries(user.projectRoles).filter(([, r]) => r.includes(role as never)).map(([id]) => id);
-  const base = () => db.select(rowShape).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).innerJoin(projects, eq(projects.id, studies.projectId));
-  const overdue = (d: Date) => Date.now() - d.getTime() > OVERDUE_DAYS * 86_400_000;
-  const mark = <T extends { updatedAt: Date }>(rows: T[]) => rows.map((r) => ({ ...r, overdue: overdue(r.updatedAt) }));
+const overdue = (d: Date) => Date.now() - d.getTime() > OVERDUE_DAYS * 86_400_000;
+const mark = <T extends { updatedAt: Date; position: string }>(rows: T[]) => rows.map(({ position: _position, ...r }) => ({ ...r, overdue: overdue(r.updatedAt) }));
+const projectsAs = (user: SessionUser, role: string) => Object.entries(user.projectRoles).filter(([, r]) => r.includes(role as never)).map(([id]) => id);
+const rows = (db: Database, where: SQL | undefined) =>
+  db.select(rowShape).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).innerJoin(projects, eq(projects.id, studies.projectId)).where(where);
 
+/**
+ * One page of the user's queue in a role, longest waiting first, with the queue's total (or, past
+ * `countUpTo`, that it holds at least that many) and the position of the next page (null at the end). A queue can be long (a designer with thousands of
+ * drafts), so it is paged by position, like the studies table.
+ */
+export async function queuePage(db: Database, user: SessionUser, role: QueueRole, after?: string, countUpTo = QUEUE_COUNT_UP_TO) {
+  const order = `queue ${role}`;
+  let from: SQL | undefined;
+  if (after) {
+    const [[key], id] = decodeCursor(after, order, ['timestamptz'], 'this queue');
+    from = or(gt(revisions.updatedAt, sql`${key}::timestamptz`), and(eq(revisions.updatedAt, sql`${key}::timestamptz`), gt(revisions.id, id)));
+  }
+  const inProjects = projectsAs(user, role);
+  if (!inProjects.length) return { role, label: LABELS[role], items: [], total: 0, totalAtLeast: false, next: null };
+  const where = and(inArray(studies.projectId, inProjects), waitingFor(role, user.id));
+  const waiting = db.select({ one: sql`1` }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where).limit(countUpTo + 1);
+  const [page, [{ counted }]] = await Promise.all([
+    rows(db, and(where, from)).orderBy(revisions.updatedAt, revisions.id).limit(QUEUE_PAGE + 1),
+    db.select({ counted: count() }).from(waiting.as('waiting')),
+  ]);
+  const shown = page.slice(0, QUEUE_PAGE);
+  const last = shown.at(-1);
+  return {
+    role,
+    label: LABELS[role],
+    items: mark(shown),
+    total: Math.min(counted, countUpTo),
+    totalAtLeast: counted > countUpTo,
+    next: page.length > QUEUE_PAGE && last ? encodeCursor(order, [last.position], last.revisionId) : null,
+  };
+}
+
+/** What waits for the user in each of their roles (the first page of each), and recent activity in their projects. */
+export async function myQueue(db: Database, user: SessionUser) {
   const waiting = [];
-  const designerProjects = inRole('designer');
-  if (designerProjects.length) {
-    waiting.push({ role: 'designer', label: 'Your drafts and returned revisions', items: mark(await base().where(and(inArray(studies.projectId, designerProjects), eq(revisions.designerId, user.id), inArray(revisions.state, ['draft', 'returned']))).orderBy(revisions.updatedAt)) });
-  }
-  const checkerProjects = inRole('checker');
-  if (checkerProjects.length) {
-    waiting.push({
-      role: 'checker',
-      label: 'Waiting for your check',
-      items: mark(
-        await base()
-          .where(and(inArray(studies.projectId, checkerProjects), or(and(eq(revisions.state, 'ready_for_check'), ne(revisions.designerId, user.id)), and(eq(revisions.state, 'in_check'), eq(revisions.checkerId, user.id)))))
-          .orderBy(revisions.updatedAt),
-      ),
-    });
-  }
-  const approverProjects = inRole('approver');
-  if (approverProjects.length) {
-    const rows = await base().where(and(inArray(studies.projectId, approverProjects), eq(revisions.state, 'checked'), ne(revisions.designerId, user.id))).orderBy(revisions.updatedAt);
-    waiting.push({ role: 'approver', label: 'Waiting for your approval', items: mark(rows) });
-  }
+  for (const role of queueRoles) if (projectsAs(user, role).length) waiting.push(await queuePage(db, user, role));
   const all = Object.keys(user.projectRoles);
-  const recent = all.length ? mark(await base().where(inArray(studies.projectId, all)).orderBy(desc(revisions.updatedAt)).limit(8)) : [];
+  const recent = all.length ? mark(await rows(db, inArray(studies.projectId, all)).orderBy(desc(revisions.updatedAt)).limit(8)) : [];
   return { waiting, recent };
 }

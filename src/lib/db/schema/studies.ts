@@ -1,4 +1,5 @@
-import { boolean, integer, jsonb, pgEnum, pgTable, real, text, timestamp, unique, uuid, type AnyPgColumn } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { boolean, index, integer, jsonb, pgEnum, pgTable, real, text, timestamp, unique, uuid, type AnyPgColumn } from 'drizzle-orm/pg-core';
 import { projects } from './projects';
 import { users } from './users';
 import { limitSetVersions, limitSets } from './limit-sets';
@@ -52,7 +53,13 @@ export const revisions = pgTable(
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
     issuedAt: timestamp('issued_at', { withTimezone: true }),
   },
-  (t) => [unique().on(t.studyId, t.number)],
+  (t) => [
+    unique().on(t.studyId, t.number),
+    // The home page's queues (longest waiting first) and recent activity, at any number of studies.
+    index('revisions_designer_waiting_idx').on(t.designerId, t.updatedAt, t.id).where(sql`${t.state} in ('draft', 'returned')`),
+    index('revisions_in_review_idx').on(t.updatedAt, t.id).where(sql`${t.state} in ('ready_for_check', 'in_check', 'checked')`),
+    index('revisions_updated_at_idx').on(t.updatedAt),
+  ],
 );
 
 export const checklistKindEnum = pgEnum('checklist_kind', ['computed', 'manual']);

@@ -1,0 +1,3 @@
+CREATE INDEX "revisions_designer_waiting_idx" ON "revisions" USING btree ("designer_id","updated_at","id") WHERE "revisions"."state" in ('draft', 'returned');--> statement-breakpoint
+CREATE INDEX "revisions_in_review_idx" ON "revisions" USING btree ("updated_at","id") WHERE "revisions"."state" in ('ready_for_check', 'in_check', 'checked');--> statement-breakpoint
+CREATE INDEX "revisions_updated_at_idx" ON "revisions" USING btree ("updated_at");
