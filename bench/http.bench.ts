@@ -106,6 +106,8 @@ const { rows: [seeded] } = await db.query(`select project_id from studies where 
 const projectId: string = seeded?.project_id ?? (await seedStudies(db));
 if (!seeded) await seedAuditEvents(db);
 const { rows: [someRevision] } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code = 'K05000'`);
+// The demo's issued revision: signed three times, with a history among the 100,000 events.
+const { rows: [issuedRevision] } = await db.query(`select id from revisions where state = 'issued' order by created_at limit 1`);
 // Twenty designers calculating their own studies: the requests cycle over 200 revisions.
 const { rows: toCalculate } = await db.query(`select r.id from revisions r join studies s on s.id = r.study_id where s.code like 'K%' order by s.code limit 200`);
 // Others, edited before each calculation (20 designers, 10 studies each).
@@ -136,6 +138,11 @@ console.log(`\n${CONNECTIONS} connections, ${SECONDS} s per route, ${STUDIES} st
 await load('studies list (any page, any sort)', cookie, studyPages);
 await load('revision detail', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}` }]);
 await load('route profile of a case (recomputed)', cookie, [{ method: 'GET', path: `/api/revisions/${someRevision.id}/profile?caseId=LOAD` }]);
+await load('home page queues (10,000 drafts waiting)', cookie, [{ method: 'GET', path: '/api/me/queue' }]);
+await load('revision history (100,000 events)', cookie, [{ method: 'GET', path: `/api/revisions/${issuedRevision.id}/history` }]);
+await load('sign-offs of an issued revision', cookie, [{ method: 'GET', path: `/api/revisions/${issuedRevision.id}/steps` }]);
+const auditor = (await signedIn('auditor@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
+await load('audit trail, first page (auditor)', auditor, [{ method: 'GET', path: '/api/audit?pageSize=50' }]);
 await load('health', cookie, [{ method: 'GET', path: '/api/health' }]);
 await load('calculate (reference study, 200 revisions)', cookie, toCalculate.map((r: { id: string }) => ({ method: 'POST' as const, path: `/api/revisions/${r.id}/calculate` })));
 
@@ -181,8 +188,7 @@ async function extras() {
 
   console.log('\nfirst-load JavaScript, gzipped:');
   // The audit trail is the auditor's screen; the others the designer's.
-  const auditorCookie = (await signedIn('auditor@sheathwise.example', DEMO_PASSWORD)).cookieHeader();
-  for (const [page, who] of [['/signin', cookie], ['/', cookie], [`/projects/${projectId}`, cookie], [`/revisions/${someRevision.id}`, cookie], ['/audit', auditorCookie]]) {
+  for (const [page, who] of [['/signin', cookie], ['/', cookie], [`/projects/${projectId}`, cookie], [`/revisions/${someRevision.id}`, cookie], ['/audit', auditor]]) {
     console.log(`  ${page.padEnd(60)} ${(((await pageJsGzip(page, who)) / 1024)).toFixed(0).padStart(5)} kB`);
   }
 

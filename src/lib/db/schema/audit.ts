@@ -1,4 +1,5 @@
-import { bigint, bigserial, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { bigint, bigserial, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 /** Append-only: each event carries the hash of the one before it, so a changed row breaks the chain. */
 export const auditEvents = pgTable('audit_events', {
@@ -12,7 +13,13 @@ export const auditEvents = pgTable('audit_events', {
   detail: jsonb('detail').notNull(),
   prevHash: text('prev_hash').notNull(),
   hash: text('hash').notNull(),
-});
+}, (t) => [
+  // A revision's history, and the record's, read its own events among hundreds of thousands.
+  index('audit_events_revision_idx').on(t.revisionId, t.id),
+  // An auditor's scope (audit-scope.ts): their projects' events, and the shared reference data's by type prefix.
+  index('audit_events_project_idx').on(t.projectId, t.id),
+  index('audit_events_shared_type_idx').on(t.type.op('text_pattern_ops')).where(sql`${t.projectId} is null`),
+]);
 
 export type AuditEvent = typeof auditEvents.$inferSelect;
 
