@@ -1,4 +1,4 @@
-import { type SQL, and, count, desc, eq, gt, inArray, ne, or, sql } from 'drizzle-orm';
+import { type SQL, and, count, desc, eq, inArray, ne, or, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { projects, revisions, studies } from '../db/schema';
 import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
@@ -22,15 +22,21 @@ const LABELS: Record<QueueRole, string> = {
   approver: 'Waiting for your approval',
 };
 
+// Every query here is prepared once per database handle, with the person, their projects and the
+// position as parameters: building and planning them cost more than running them on every visit
+// to the home page.
+const me = sql.placeholder('user');
+const inProjects = sql`${studies.projectId} = any(${sql.placeholder('projects')}::uuid[])`;
+
 /** What puts a revision in the user's queue for a role. */
-function waitingFor(role: QueueRole, userId: string): SQL | undefined {
+function waitingFor(role: QueueRole): SQL | undefined {
   switch (role) {
     case 'designer':
-      return and(eq(revisions.designerId, userId), inArray(revisions.state, ['draft', 'returned']));
+      return and(eq(revisions.designerId, me), inArray(revisions.state, ['draft', 'returned']));
     case 'checker':
-      return or(and(eq(revisions.state, 'ready_for_check'), ne(revisions.designerId, userId)), and(eq(revisions.state, 'in_check'), eq(revisions.checkerId, userId)));
+      return or(and(eq(revisions.state, 'ready_for_check'), ne(revisions.designerId, me)), and(eq(revisions.state, 'in_check'), eq(revisions.checkerId, me)));
     case 'approver':
-      return and(eq(revisions.state, 'checked'), ne(revisions.designerId, userId));
+      return and(eq(revisions.state, 'checked'), ne(revisions.designerId, me));
   }
 }
 
@@ -53,6 +59,25 @@ const projectsAs = (user: SessionUser, role: string) => Object.entries(user.proj
 const rows = (db: Database, where: SQL | undefined) =>
   db.select(rowShape).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).innerJoin(projects, eq(projects.id, studies.projectId)).where(where);
 
+function queueQueries(db: Database, role: QueueRole) {
+  const where = and(inProjects, waitingFor(role));
+  // After the position: the first page starts from the earliest time there is.
+  const from = sql`(${revisions.updatedAt}, ${revisions.id}) > (${sql.placeholder('key')}::timestamptz, ${sql.placeholder('id')}::uuid)`;
+  const waiting = db.select({ one: sql`1` }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where).limit(sql.placeholder('countLimit'));
+  return {
+    page: rows(db, and(where, from)).orderBy(revisions.updatedAt, revisions.id).limit(QUEUE_PAGE + 1).prepare(`queue_${role}_page`),
+    count: db.select({ counted: count() }).from(waiting.as('waiting')).prepare(`queue_${role}_count`),
+  };
+}
+const recentQuery = (db: Database) => rows(db, inProjects).orderBy(desc(revisions.updatedAt)).limit(8).prepare('queue_recent');
+
+const prepared = new WeakMap<Database, { recent: ReturnType<typeof recentQuery> } & Record<QueueRole, ReturnType<typeof queueQueries>>>();
+function queries(db: Database) {
+  let q = prepared.get(db);
+  if (!q) prepared.set(db, (q = { recent: recentQuery(db), designer: queueQueries(db, 'designer'), checker: queueQueries(db, 'checker'), approver: queueQueries(db, 'approver') }));
+  return q;
+}
+
 /**
  * One page of the user's queue in a role, longest waiting first, with the queue's total (or, past
  * `countUpTo`, that it holds at least that many) and the position of the next page (null at the end). A queue can be long (a designer with thousands of
@@ -60,18 +85,14 @@ const rows = (db: Database, where: SQL | undefined) =>
  */
 export async function queuePage(db: Database, user: SessionUser, role: QueueRole, after?: string, countUpTo = QUEUE_COUNT_UP_TO) {
   const order = `queue ${role}`;
-  let from: SQL | undefined;
-  if (after) {
-    const [[key], id] = decodeCursor(after, order, ['timestamptz'], 'this queue');
-    from = or(gt(revisions.updatedAt, sql`${key}::timestamptz`), and(eq(revisions.updatedAt, sql`${key}::timestamptz`), gt(revisions.id, id)));
-  }
-  const inProjects = projectsAs(user, role);
-  if (!inProjects.length) return { role, label: LABELS[role], items: [], total: 0, totalAtLeast: false, next: null };
-  const where = and(inArray(studies.projectId, inProjects), waitingFor(role, user.id));
-  const waiting = db.select({ one: sql`1` }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where).limit(countUpTo + 1);
+  let [key, id] = ['-infinity', '00000000-0000-0000-0000-000000000000'];
+  if (after) [[key], id] = decodeCursor(after, order, ['timestamptz'], 'this queue');
+  const projectIds = projectsAs(user, role);
+  if (!projectIds.length) return { role, label: LABELS[role], items: [], total: 0, totalAtLeast: false, next: null };
+  const q = queries(db)[role];
   const [page, [{ counted }]] = await Promise.all([
-    rows(db, and(where, from)).orderBy(revisions.updatedAt, revisions.id).limit(QUEUE_PAGE + 1),
-    db.select({ counted: count() }).from(waiting.as('waiting')),
+    q.page.execute({ user: user.id, projects: projectIds, key, id }),
+    q.count.execute({ user: user.id, projects: projectIds, countLimit: countUpTo + 1 }),
   ]);
   const shown = page.slice(0, QUEUE_PAGE);
   const last = shown.at(-1);
@@ -90,6 +111,6 @@ export async function myQueue(db: Database, user: SessionUser) {
   const waiting = [];
   for (const role of queueRoles) if (projectsAs(user, role).length) waiting.push(await queuePage(db, user, role));
   const all = Object.keys(user.projectRoles);
-  const recent = all.length ? mark(await rows(db, inArray(studies.projectId, all)).orderBy(desc(revisions.updatedAt)).limit(8)) : [];
+  const recent = all.length ? mark(await queries(db).recent.execute({ projects: all })) : [];
   return { waiting, recent };
 }
