@@ -10,7 +10,7 @@ export const OVERDUE_DAYS = 5;
 /** A queue lists this many at a time, those that have waited longest first; its total is given beside. */
 export const QUEUE_PAGE = 20;
 
-/** Totals are counted up to this; past it a queue says "at least" (a queue that long is long enough to say so, and counting ten thousand drafts on every visit is not worth it). */
+/** Totals are counted up to this; past it a queue says "at least": counting ten thousand drafts on every visit is not worth it. */
 export const QUEUE_COUNT_UP_TO = 200;
 
 export const queueRoles = ['designer', 'checker', 'approver'] as const;
@@ -80,8 +80,9 @@ function queries(db: Database) {
 
 /**
  * One page of the user's queue in a role, longest waiting first, with the queue's total (or, past
- * `countUpTo`, that it holds at least that many) and the position of the next page (null at the end). A queue can be long (a designer with thousands of
- * drafts), so it is paged by position, like the studies table.
+ * `countUpTo`, that it holds at least that many) and the position of the next page (null at the
+ * end). A queue can be long (a designer with thousands of drafts), so it is paged by position,
+ * like the studies table.
  */
 export async function queuePage(db: Database, user: SessionUser, role: QueueRole, after?: string, countUpTo = QUEUE_COUNT_UP_TO) {
   const order = `queue ${role}`;
