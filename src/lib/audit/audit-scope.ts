@@ -1,4 +1,4 @@
-import { and, inArray, isNull, like, or, type SQL } from 'drizzle-orm';
+import { and, inArray, isNull, like, or, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
 import type { SessionUser } from '../auth/roles';
 import { auditEvents } from '../db/schema';
 import { authorize } from '../server/authorize';
@@ -26,12 +26,17 @@ export function auditScopeFor(user: SessionUser | null | undefined): AuditScope 
   return { all: false, projectIds: Object.keys(reader.projectRoles).filter((p) => reader.projectRoles[p].length > 0).sort() };
 }
 
+/** Project-less events about the shared reference data. */
+const sharedEvents = and(isNull(auditEvents.projectId), or(...SHARED_TYPE_PREFIXES.map((p) => like(auditEvents.type, `${p}%`))));
+
 /** The SQL condition for events inside the scope (undefined: no restriction). */
 export function scopeCondition(scope: AuditScope): SQL | undefined {
   if (scope.all) return undefined;
-  const shared = and(isNull(auditEvents.projectId), or(...SHARED_TYPE_PREFIXES.map((p) => like(auditEvents.type, `${p}%`))));
-  return scope.projectIds.length ? or(inArray(auditEvents.projectId, scope.projectIds), shared) : shared;
+  return scope.projectIds.length ? or(inArray(auditEvents.projectId, scope.projectIds), sharedEvents) : sharedEvents;
 }
+
+/** scopeCondition with the reader's projects as a parameter (a uuid[]; empty for none), for prepared statements. */
+export const scopeConditionOf = (projectIds: SQLWrapper) => or(sql`${auditEvents.projectId} = any(${projectIds}::uuid[])`, sharedEvents);
 
 /** The same rule as scopeCondition, for rows already loaded. */
 export function inScope(scope: AuditScope, event: { projectId: string | null; type: string }): boolean {
