@@ -3,11 +3,10 @@ import { createDatabase } from '../../src/lib/db/client';
 import { QUEUE_PAGE } from '../../src/lib/studies/queue.service';
 import { appUrl, browserAs, hydrated } from '../helpers/browser-session';
 import { showMoreOf } from '../helpers/desk-browser';
-import { testEnv } from '../helpers/env';
+import { DEMO_PASSWORD, testEnv } from '../helpers/env';
 import { signedIn } from '../helpers/http-session';
 import { designerWaiting, fillDesignerQueue } from '../helpers/queue-drafts';
 import { DEMO } from '../helpers/workflow-api';
-import { DEMO_PASSWORD } from '../helpers/env';
 
 // The home page with a long queue: a page of the longest waiting, how many there are, and more on request.
 
