@@ -132,8 +132,8 @@ const flatten = (r: NamedRow) => {
 
 /**
  * The audit screen's opening view (no filter) for a scoped reader and for an administrator,
- * prepared once per database handle: PostgreSQL then plans each once, where planning had cost more
- * than running them.
+ * prepared once per database handle: neither Drizzle nor PostgreSQL parses them again. PostgreSQL
+ * still plans each call (its generic plans for these are bad; see DEVELOPERS.md, Planning).
  */
 function unfilteredQueries(db: Database) {
   const build = (where: SQL | undefined, name: string) => ({

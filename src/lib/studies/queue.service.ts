@@ -23,8 +23,8 @@ const LABELS: Record<QueueRole, string> = {
 };
 
 // Every query here is prepared once per database handle, with the person, their projects and the
-// position as parameters: building and planning them cost more than running them on every visit
-// to the home page.
+// position as parameters: Drizzle builds and PostgreSQL parses each once, not on every visit to
+// the home page (PostgreSQL still plans each call; see DEVELOPERS.md, Planning).
 const me = sql.placeholder('user');
 const inProjects = sql`${studies.projectId} = any(${sql.placeholder('projects')}::uuid[])`;
 
