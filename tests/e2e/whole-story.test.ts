@@ -201,7 +201,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
 
   it('the approver issues it', async () => {
     const page = await as('approver@sheathwise.example');
-    await page.getByTestId('queue-approver').getByRole('link', { name: new RegExp(code) }).click();
+    await openFromQueue(page, 'approver', code);
     await hydrated(page);
     await page.getByRole('tab', { name: 'Checklist' }).click();
     await screenshot(page, 'approval');
@@ -213,7 +213,7 @@ describe('the whole story in the browser', { timeout: 60_000 }, () => {
     const page = sessionsPage(2);
     await page.goto(`${appUrl}/`);
     await hydrated(page);
-    await page.getByTestId('queue-approver').getByRole('link', { name: /B02/ }).click();
+    await openFromQueue(page, 'approver', 'B02');
     await hydrated(page);
     await confirmStep(page, 'Approve and issue');
     await page.getByText('A failing checklist item has neither been resolved nor justified by the approver.').waitFor();
