@@ -5,6 +5,7 @@ import { eventSentence } from '../records/event-sentences';
 import { canonicalJson, sha256Hex } from '../canonical-json';
 import { toCsv } from '../csv/csv-text';
 import { scopeCondition, scopeConditionOf, type AuditScope } from './audit-scope';
+import { snapshotCache } from '../db/snapshot-cache';
 
 /** The previous hash of the first event. */
 export const GENESIS = 'genesis';
@@ -144,8 +145,17 @@ function unfilteredQueries(db: Database) {
 }
 const unfiltered = new WeakMap<Database, ReturnType<typeof unfilteredQueries>>();
 
-/** A page of the events in scope, newest first. */
-export async function listAuditEvents(db: Database, scope: AuditScope, filter: AuditFilter, page: number, pageSize: number) {
+const pages = snapshotCache<Awaited<ReturnType<typeof readAuditPage>>>(1_000);
+
+/**
+ * A page of the events in scope, newest first. Kept until the database next changes (see
+ * snapshotCache): the trail only grows when something is written, and auditors page back and forth.
+ */
+export function listAuditEvents(db: Database, scope: AuditScope, filter: AuditFilter, page: number, pageSize: number) {
+  return pages(db, JSON.stringify([scope, filter, page, pageSize]), () => readAuditPage(db, scope, filter, page, pageSize));
+}
+
+async function readAuditPage(db: Database, scope: AuditScope, filter: AuditFilter, page: number, pageSize: number) {
   if (Object.values(filter).every((v) => v === undefined)) {
     let q = unfiltered.get(db);
     if (!q) unfiltered.set(db, (q = unfilteredQueries(db)));

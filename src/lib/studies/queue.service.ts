@@ -1,7 +1,8 @@
-import { type SQL, and, count, desc, eq, inArray, ne, or, sql } from 'drizzle-orm';
+import { type SQL, type SQLWrapper, and, count, desc, eq, inArray, ne, or, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { projects, revisions, studies } from '../db/schema';
 import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
+import { snapshotCache } from '../db/snapshot-cache';
 import type { SessionUser } from '../auth/roles';
 
 /** A revision that waited longer than this in someone's queue is shown as overdue. */
@@ -40,32 +41,41 @@ function waitingFor(role: QueueRole): SQL | undefined {
   }
 }
 
+// The project's name comes from a scalar subquery rather than a third join: PostgreSQL plans every
+// call of these (custom plans), and a join more costs more planning than the lookup costs running.
+const projectName = (projectId: SQLWrapper) => sql<string>`(select ${projects.name} from ${projects} where ${projects.id} = ${projectId})`;
+
 const rowShape = {
   revisionId: revisions.id,
   projectId: studies.projectId,
   studyCode: studies.code,
   studyTitle: studies.title,
-  projectName: projects.name,
   revisionNumber: revisions.number,
   state: revisions.state,
   updatedAt: revisions.updatedAt,
   // The position as text keeps the microseconds a Date would drop.
-  position: sql<string>`${revisions.updatedAt}::text`,
+  position: sql<string>`${revisions.updatedAt}::text`.as('position'),
 };
 
 const overdue = (d: Date) => Date.now() - d.getTime() > OVERDUE_DAYS * 86_400_000;
 const mark = <T extends { updatedAt: Date; position: string }>(rows: T[]) => rows.map(({ position: _position, ...r }) => ({ ...r, overdue: overdue(r.updatedAt) }));
 const projectsAs = (user: SessionUser, role: string) => Object.entries(user.projectRoles).filter(([, r]) => r.includes(role as never)).map(([id]) => id);
 const rows = (db: Database, where: SQL | undefined) =>
-  db.select(rowShape).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).innerJoin(projects, eq(projects.id, studies.projectId)).where(where);
+  db.select({ ...rowShape, projectName: projectName(studies.projectId) }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where);
 
 function queueQueries(db: Database, role: QueueRole) {
   const where = and(inProjects, waitingFor(role));
-  // After the position: the first page starts from the earliest time there is.
+  const oldestFirst = [revisions.updatedAt, revisions.id] as const;
+  // The first page and the total in one statement: the queue's oldest rows up to the counting
+  // limit, counted, of which the first page is named and returned.
+  const upToLimit = db.select(rowShape).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where).orderBy(...oldestFirst).limit(sql.placeholder('countLimit')).as('up_to_limit');
+  const counted = db.select({ ...upToLimit._.selectedFields, counted: sql<number>`count(*) over ()`.mapWith(Number).as('counted') }).from(upToLimit).as('counted');
+  // After a position: the next page, and the total apart.
   const from = sql`(${revisions.updatedAt}, ${revisions.id}) > (${sql.placeholder('key')}::timestamptz, ${sql.placeholder('id')}::uuid)`;
   const waiting = db.select({ one: sql`1` }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where).limit(sql.placeholder('countLimit'));
   return {
-    page: rows(db, and(where, from)).orderBy(revisions.updatedAt, revisions.id).limit(QUEUE_PAGE + 1).prepare(`queue_${role}_page`),
+    first: db.select({ ...counted._.selectedFields, projectName: projectName(counted.projectId) }).from(counted).orderBy(counted.updatedAt, counted.revisionId).limit(QUEUE_PAGE + 1).prepare(`queue_${role}_first`),
+    page: rows(db, and(where, from)).orderBy(...oldestFirst).limit(QUEUE_PAGE + 1).prepare(`queue_${role}_page`),
     count: db.select({ counted: count() }).from(waiting.as('waiting')).prepare(`queue_${role}_count`),
   };
 }
@@ -78,6 +88,18 @@ function queries(db: Database) {
   return q;
 }
 
+/** The first page (and the count, up to the limit) in one call, or a later page and the count apart. */
+async function pageAndCount(db: Database, user: SessionUser, role: QueueRole, projectIds: string[], countLimit: number, after?: [string, string]) {
+  const q = queries(db)[role];
+  if (!after) {
+    const page = await q.first.execute({ user: user.id, projects: projectIds, countLimit });
+    return { page: page.map(({ counted: _counted, ...row }) => row), counted: page[0]?.counted ?? 0 };
+  }
+  const [key, id] = after;
+  const [page, [{ counted }]] = await Promise.all([q.page.execute({ user: user.id, projects: projectIds, key, id }), q.count.execute({ user: user.id, projects: projectIds, countLimit })]);
+  return { page, counted };
+}
+
 /**
  * One page of the user's queue in a role, longest waiting first, with the queue's total (or, past
  * `countUpTo`, that it holds at least that many) and the position of the next page (null at the
@@ -86,15 +108,14 @@ function queries(db: Database) {
  */
 export async function queuePage(db: Database, user: SessionUser, role: QueueRole, after?: string, countUpTo = QUEUE_COUNT_UP_TO) {
   const order = `queue ${role}`;
-  let [key, id] = ['-infinity', '00000000-0000-0000-0000-000000000000'];
-  if (after) [[key], id] = decodeCursor(after, order, ['timestamptz'], 'this queue');
+  let position: [string, string] | undefined;
+  if (after) {
+    const [[key], id] = decodeCursor(after, order, ['timestamptz'], 'this queue');
+    position = [key, id];
+  }
   const projectIds = projectsAs(user, role);
   if (!projectIds.length) return { role, label: LABELS[role], items: [], total: 0, totalAtLeast: false, next: null };
-  const q = queries(db)[role];
-  const [page, [{ counted }]] = await Promise.all([
-    q.page.execute({ user: user.id, projects: projectIds, key, id }),
-    q.count.execute({ user: user.id, projects: projectIds, countLimit: countUpTo + 1 }),
-  ]);
+  const { page, counted } = await pageAndCount(db, user, role, projectIds, countUpTo + 1, position);
   const shown = page.slice(0, QUEUE_PAGE);
   const last = shown.at(-1);
   return {
@@ -107,11 +128,24 @@ export async function queuePage(db: Database, user: SessionUser, role: QueueRole
   };
 }
 
-/** What waits for the user in each of their roles (the first page of each), and recent activity in their projects. */
-export async function myQueue(db: Database, user: SessionUser) {
-  const waiting = [];
-  for (const role of queueRoles) if (projectsAs(user, role).length) waiting.push(await queuePage(db, user, role));
+const queues = snapshotCache<Awaited<ReturnType<typeof readMyQueue>>>(2_000);
+
+async function readMyQueue(db: Database, user: SessionUser) {
   const all = Object.keys(user.projectRoles);
-  const recent = all.length ? mark(await queries(db).recent.execute({ projects: all })) : [];
+  const [waiting, recent] = await Promise.all([
+    Promise.all(queueRoles.filter((role) => projectsAs(user, role).length).map((role) => queuePage(db, user, role))),
+    all.length ? queries(db).recent.execute({ projects: all }).then(mark) : [],
+  ]);
   return { waiting, recent };
+}
+
+/**
+ * What waits for the user in each of their roles (the first page of each), and recent activity in
+ * their projects. Kept until the database next changes (see snapshotCache): the home page is
+ * opened far more often than revisions move. Whether a row is overdue is decided as it is sent.
+ */
+export async function myQueue(db: Database, user: SessionUser) {
+  const { waiting, recent } = await queues(db, `${user.id} ${JSON.stringify(user.projectRoles)}`, () => readMyQueue(db, user));
+  const now = <T extends { updatedAt: Date }>(items: T[]) => items.map((i) => ({ ...i, overdue: overdue(i.updatedAt) }));
+  return { waiting: waiting.map((w) => ({ ...w, items: now(w.items) })), recent: now(recent) };
 }

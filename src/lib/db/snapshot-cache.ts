@@ -1,0 +1,41 @@
+import { sql } from 'drizzle-orm';
+import { LRUCache } from 'lru-cache';
+import type { Database } from './client';
+
+/**
+ * Answers kept until the data they were read from may have changed.
+ *
+ * The stamp is the database's current snapshot (`pg_current_snapshot()`), which decides what a
+ * statement sees. Its upper bound moves past every transaction that writes and then ends, and its
+ * list of transactions in progress only shrinks below that bound, so the stamp never returns to a
+ * value it has left: while it stands, no write has been committed, and statements see the same rows
+ * (a writer still in progress changes nothing a reader sees until it ends, and its end moves the
+ * stamp). Reads alone leave it as it is. So an answer computed after its stamp was read is still
+ * the answer while the stamp stands, whichever server process or path wrote. The stamp is coarse
+ * (a write anywhere starts every answer afresh) but writers keep nothing for it: it suits screens
+ * read far more often than anything is written, such as the home page queues and the audit trail.
+ */
+export async function snapshotStamp(db: Database): Promise<string> {
+  const { rows } = await db.execute<{ stamp: string }>(sql`select pg_current_snapshot()::text as stamp`);
+  return rows[0].stamp;
+}
+
+/**
+ * A cache of answers by key, each valid under the snapshot stamp read before it was computed.
+ * Concurrent requests for the same key and stamp share one computation; a failed one is not kept.
+ * Callers must not change what they are given: it is shared.
+ */
+export function snapshotCache<V extends object>(max: number) {
+  const answers = new LRUCache<string, { stamp: string; answer: Promise<V> }>({ max });
+  return async function cached(db: Database, key: string, compute: () => Promise<V>): Promise<V> {
+    const stamp = await snapshotStamp(db);
+    const kept = answers.get(key);
+    if (kept?.stamp === stamp) return kept.answer;
+    const answer = compute();
+    answers.set(key, { stamp, answer });
+    answer.catch(() => {
+      if (answers.get(key)?.answer === answer) answers.delete(key);
+    });
+    return answer;
+  };
+}
