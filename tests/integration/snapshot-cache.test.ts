@@ -114,4 +114,15 @@ describe('answers kept under the snapshot', () => {
     await db.execute(sql`update studies set code = ${`${code}X`} where id = ${studyId}`);
     expect([...(await codes())]).toEqual([`${code}X`]);
   });
+
+  it('the audit filters name a person renamed behind the server', async () => {
+    const people = async () => (await json(await sessions.auditor.fetch('/api/audit/facets'), 200)).people as Array<{ id: string; name: string }>;
+    const [person] = await people();
+    try {
+      await db.execute(sql`update users set name = ${`${person.name} (renamed)`} where id = ${person.id}`);
+      expect((await people()).find((p) => p.id === person.id)?.name).toBe(`${person.name} (renamed)`);
+    } finally {
+      await db.execute(sql`update users set name = ${person.name} where id = ${person.id}`);
+    }
+  });
 });

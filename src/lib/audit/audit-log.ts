@@ -172,8 +172,21 @@ async function readAuditPage(db: Database, scope: AuditScope, filter: AuditFilte
   return { total, events: rows.map(flatten) };
 }
 
+const facets = snapshotCache<{ people: Array<{ id: string; name: string }>; types: string[] }>(200);
+
+/**
+ * The people and event types in scope, for the filters. Both scan every event in scope (100,000
+ * for an administrator), so they are kept until the database next changes (see snapshotCache).
+ */
+export function auditFacets(db: Database, scope: AuditScope) {
+  return facets(db, JSON.stringify(scope), async () => {
+    const [people, types] = await Promise.all([auditActors(db, scope), auditTypes(db, scope)]);
+    return { people, types };
+  });
+}
+
 /** The people who appear in the events in scope, for the person filter. */
-export async function auditActors(db: Database, scope: AuditScope) {
+async function auditActors(db: Database, scope: AuditScope) {
   return db
     .selectDistinct({ id: users.id, name: users.name })
     .from(auditEvents)
@@ -183,7 +196,7 @@ export async function auditActors(db: Database, scope: AuditScope) {
 }
 
 /** The event types that appear in the events in scope, for the type filter. */
-export async function auditTypes(db: Database, scope: AuditScope): Promise<string[]> {
+async function auditTypes(db: Database, scope: AuditScope): Promise<string[]> {
   return (await db.selectDistinct({ type: auditEvents.type }).from(auditEvents).where(scopeCondition(scope)).orderBy(auditEvents.type)).map((r) => r.type);
 }
 
