@@ -14,11 +14,15 @@ import { compute } from '../compute/compute-pool';
  */
 const recomputedProfiles = new LRUCache<string, string>({ maxSize: 64 * 1024 * 1024, sizeCalculation: (text) => Math.max(1, text.length) });
 
-/** What decides a route profile request, in one read: the stored case's own profile (older revisions kept them) as JSON text. */
-async function profileScope(db: Database, revisionId: string, caseId: string) {
-  assertId(revisionId, 'revision');
-  const storedCase = sql`(select c from jsonb_array_elements(${revisions.results}->'cases') c where c->>'caseId' = ${caseId} limit 1)`;
-  const [row] = await db
+/**
+ * The stored case's own profile (older revisions kept them) as JSON text, found in one pass over
+ * the stored cases: null when there is no such case, '' when the case holds no profile.
+ */
+const storedProfile = sql<string | null>`(select coalesce((c->'profile')::text, '') from jsonb_array_elements(${revisions.results}->'cases') c where c->>'caseId' = ${sql.placeholder('caseId')} limit 1)`;
+
+/** What decides a route profile request, in one read; prepared once per database handle, as the plot asks for it often. */
+function scopeQuery(db: Database) {
+  return db
     .select({
       projectId: studies.projectId,
       kind: studies.kind,
@@ -27,14 +31,22 @@ async function profileScope(db: Database, revisionId: string, caseId: string) {
       resultsInputsHash: revisions.resultsInputsHash,
       engineVersion: revisions.engineVersion,
       calculated: sql<boolean>`${revisions.results} is not null`,
-      caseFound: sql<boolean>`${storedCase} is not null`,
-      storedProfileJson: sql<string | null>`(${storedCase}->'profile')::text`,
+      storedProfile,
     })
     .from(revisions)
     .innerJoin(studies, eq(studies.id, revisions.studyId))
-    .where(eq(revisions.id, revisionId));
+    .where(eq(revisions.id, sql.placeholder('id')))
+    .prepare('route_profile_scope');
+}
+const scopeQueries = new WeakMap<Database, ReturnType<typeof scopeQuery>>();
+
+async function profileScope(db: Database, revisionId: string, caseId: string) {
+  assertId(revisionId, 'revision');
+  let q = scopeQueries.get(db);
+  if (!q) scopeQueries.set(db, (q = scopeQuery(db)));
+  const [row] = await q.execute({ id: revisionId, caseId });
   if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
-  return row;
+  return { ...row, caseFound: row.storedProfile !== null, storedProfileJson: row.storedProfile || null };
 }
 
 /**
