@@ -107,12 +107,17 @@ describe('answers kept under the snapshot', () => {
     }
   });
 
-  it('the audit trail shows a study code changed behind the server on the next page it serves', async () => {
+  it('the audit trail and the revision history show a study code changed behind the server on the next page they serve', async () => {
     const { studyId, revisionId } = await readyDraft(sessions.designer, 'fernhollow-cross-bonded', 'S');
-    const codes = async () => new Set((await json(await sessions.auditor.fetch(`/api/audit?revisionId=${revisionId}&pageSize=20`), 200)).events.map((e: { studyCode: string }) => e.studyCode));
-    const [code] = await codes();
+    type Told = { events: Array<{ studyCode: string }> };
+    const codes = async (path: string) => [...new Set(((await json(await sessions.auditor.fetch(path), 200)) as Told).events.map((e) => e.studyCode))];
+    const trail = `/api/audit?revisionId=${revisionId}&pageSize=20`;
+    const history = `/api/revisions/${revisionId}/history`;
+    const [code] = await codes(trail);
+    expect(await codes(history)).toEqual([code]);
     await db.execute(sql`update studies set code = ${`${code}X`} where id = ${studyId}`);
-    expect([...(await codes())]).toEqual([`${code}X`]);
+    expect(await codes(trail)).toEqual([`${code}X`]);
+    expect(await codes(history)).toEqual([`${code}X`]);
   });
 
   it('the audit filters name a person renamed behind the server', async () => {

@@ -3,6 +3,7 @@ import { LRUCache } from 'lru-cache';
 import type { Database } from '../db/client';
 import { revisions, signOffs, users } from '../db/schema';
 import { assertId } from '../db/revisions.repo';
+import { snapshotCache } from '../db/snapshot-cache';
 import { AppError } from '../errors';
 import { compute } from '../compute/compute-pool';
 import { signOffStanding } from './sign-off';
@@ -29,13 +30,21 @@ async function currentResultsHash(db: Database, revisionId: string, rowVersion: 
   return hash;
 }
 
+const answers = snapshotCache<Awaited<ReturnType<typeof readSignOffs>>>(2_000);
+
 /**
  * A revision's sign-offs, oldest first, with the signer's name and whether each still stands.
  * The results are what a signature covers: their hash is taken in a worker thread from the bytes
- * in the database, and kept for as long as the revision row is unchanged.
+ * in the database, and kept for as long as the revision row is unchanged. The whole answer is
+ * kept until the database next changes (see snapshotCache); a write to the results, by any path,
+ * moves the snapshot, so a kept answer never vouches for other figures.
  */
-export async function signOffsOf(db: Database, revisionId: string) {
+export function signOffsOf(db: Database, revisionId: string) {
   assertId(revisionId, 'revision');
+  return answers(db, revisionId, () => readSignOffs(db, revisionId));
+}
+
+async function readSignOffs(db: Database, revisionId: string) {
   const rows = await db
     .select({ signOff: signOffs, name: users.name })
     .from(signOffs)
