@@ -23,7 +23,8 @@ export async function snapshotStamp(db: Database): Promise<string> {
 /**
  * A cache of answers by key, each valid under the snapshot stamp read before it was computed.
  * Concurrent requests for the same key and stamp share one computation; a failed one is not kept.
- * Callers must not change what they are given: it is shared.
+ * Callers must not change what they are given: it is shared. Pass the pool's handle, never a
+ * transaction's: inside a transaction the snapshot leaves out the transaction's own writes.
  */
 export function snapshotCache<V extends object>(max: number) {
   const answers = new LRUCache<string, { stamp: string; answer: Promise<V> }>({ max });
