@@ -4,6 +4,8 @@ import type { Database } from '../db/client';
 import { revisions, signOffs, users } from '../db/schema';
 import { assertId } from '../db/revisions.repo';
 import { snapshotCache } from '../db/snapshot-cache';
+import { inTransaction } from '../db/transaction';
+import type { AppServices } from '../services';
 import { AppError } from '../errors';
 import { compute } from '../compute/compute-pool';
 import { signOffStanding } from './sign-off';
@@ -39,25 +41,27 @@ const answers = snapshotCache<Awaited<ReturnType<typeof readSignOffs>>>(2_000);
  * kept until the database next changes (see snapshotCache); a write to the results, by any path,
  * moves the snapshot, so a kept answer never vouches for other figures.
  */
-export function signOffsOf(db: Database, revisionId: string) {
+export function signOffsOf(s: Pick<AppServices, 'db' | 'pool'>, revisionId: string) {
   assertId(revisionId, 'revision');
-  return answers(db, revisionId, () => readSignOffs(db, revisionId));
+  return answers(s.db, revisionId, () => inTransaction(s.pool, (tx) => readSignOffs(tx, revisionId)));
 }
 
-async function readSignOffs(db: Database, revisionId: string) {
-  const rows = await db
+/** Reads in one snapshot (repeatable read), so names, state and results come from the same moment even while someone commits. */
+async function readSignOffs(tx: Database, revisionId: string) {
+  await tx.execute(sql`set transaction isolation level repeatable read, read only`);
+  const rows = await tx
     .select({ signOff: signOffs, name: users.name })
     .from(signOffs)
     .innerJoin(users, eq(users.id, signOffs.userId))
     .where(eq(signOffs.revisionId, revisionId))
     .orderBy(asc(signOffs.createdAt), asc(signOffs.id));
-  const [revision] = await db
+  const [revision] = await tx
     .select({ inputsHash: revisions.inputsHash, rowVersion: sql<string>`${revisions}.xmin::text`, calculated: sql<boolean>`${revisions.results} is not null` })
     .from(revisions)
     .where(eq(revisions.id, revisionId));
   if (!revision) throw new AppError('NotFound', 'There is no revision with this id.');
   // The results only when there is a signature to check them against.
-  const resultsHash = rows.length && revision.calculated ? await currentResultsHash(db, revisionId, revision.rowVersion) : null;
+  const resultsHash = rows.length && revision.calculated ? await currentResultsHash(tx, revisionId, revision.rowVersion) : null;
   const current = { inputsHash: revision.inputsHash, resultsHash };
   return rows.map(({ signOff, name }) => ({ ...signOff, name, ...signOffStanding(signOff, current) }));
 }

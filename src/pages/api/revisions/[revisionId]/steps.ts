@@ -11,9 +11,9 @@ import { stepSchema } from '../../../../lib/schemas/revision-actions.schema';
 
 /** The sign-offs of a revision, each with whether it still covers the current inputs and results. */
 export const GET = endpoint(async ({ locals, params }) => {
-  const { db } = await services();
-  authorize(locals.user, { anyRole: READERS, projectId: await projectOfRevision(db, params.revisionId!) });
-  return Response.json({ signOffs: await signOffsOf(db, params.revisionId!) });
+  const s = await services();
+  authorize(locals.user, { anyRole: READERS, projectId: await projectOfRevision(s.db, params.revisionId!) });
+  return Response.json({ signOffs: await signOffsOf(s, params.revisionId!) });
 });
 
 export const POST = endpoint(async ({ locals, params, request }) => {
