@@ -63,7 +63,7 @@ describe('snapshot stamp', () => {
   });
 
   it('keeps an answer while the stamp stands, shares it between callers, and computes afresh after a write', async () => {
-    const cached = snapshotCache<{ n: number }>(10);
+    const cached = snapshotCache<{ n: number }>(1_000);
     let computed = 0;
     const compute = async () => ({ n: ++computed });
     // Unchanged database: the second call is answered from the first.
@@ -84,6 +84,22 @@ describe('snapshot stamp', () => {
     const before = await cached(db, 'k', compute);
     await db.execute(sql`update projects set name = name where id = (select id from projects order by id limit 1)`);
     expect((await cached(db, 'k', compute)).n).toBeGreaterThan(before.n);
+  });
+
+  it('does not keep an answer larger, as JSON, than the whole cache', async () => {
+    const cached = snapshotCache<{ n: number; text: string }>(100);
+    let computed = 0;
+    const big = async () => ({ n: ++computed, text: 'x'.repeat(200) });
+    expect(
+      await someTime(async () => {
+        const before = await snapshotStamp(db);
+        await cached(db, 'big', big);
+        await new Promise((settled) => setImmediate(settled));
+        const was = computed;
+        await cached(db, 'big', big);
+        return (await snapshotStamp(db)) === before && computed === was + 1;
+      }),
+    ).toBe(true);
   });
 });
 

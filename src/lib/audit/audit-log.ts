@@ -145,7 +145,7 @@ function unfilteredQueries(db: Database) {
 }
 const unfiltered = new WeakMap<Database, ReturnType<typeof unfilteredQueries>>();
 
-const pages = snapshotCache<Awaited<ReturnType<typeof readAuditPage>>>(1_000);
+const pages = snapshotCache<Awaited<ReturnType<typeof readAuditPage>>>(32 * 1024 * 1024);
 
 /**
  * A page of the events in scope, newest first. Kept until the database next changes (see
@@ -172,7 +172,7 @@ async function readAuditPage(db: Database, scope: AuditScope, filter: AuditFilte
   return { total, events: rows.map(flatten) };
 }
 
-const facets = snapshotCache<{ people: Array<{ id: string; name: string }>; types: string[] }>(200);
+const facets = snapshotCache<{ people: Array<{ id: string; name: string }>; types: string[] }>(4 * 1024 * 1024);
 
 /**
  * The people and event types in scope, for the filters. Both scan every event in scope (100,000

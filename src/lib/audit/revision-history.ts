@@ -17,7 +17,7 @@ function historyQuery(db: Database) {
 }
 const prepared = new WeakMap<Database, ReturnType<typeof historyQuery>>();
 
-const histories = snapshotCache<Awaited<ReturnType<ReturnType<typeof historyQuery>['execute']>>>(2_000);
+const histories = snapshotCache<Awaited<ReturnType<ReturnType<typeof historyQuery>['execute']>>>(16 * 1024 * 1024);
 
 /**
  * The revision's own history, for everyone who may read the revision (authorise first). Kept

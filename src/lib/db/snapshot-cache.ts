@@ -20,23 +20,37 @@ export async function snapshotStamp(db: Database): Promise<string> {
   return rows[0].stamp;
 }
 
+interface Kept<V> {
+  readonly stamp: string;
+  readonly answer: Promise<V>;
+  /** The answer's size as JSON text, once it is known (1 until then). */
+  readonly size: number;
+}
+
 /**
- * A cache of answers by key, each valid under the snapshot stamp read before it was computed.
- * Concurrent requests for the same key and stamp share one computation; a failed one is not kept.
- * Callers must not change what they are given: it is shared. Pass the pool's handle, never a
- * transaction's: inside a transaction the snapshot leaves out the transaction's own writes.
+ * A cache of answers by key, each valid under the snapshot stamp read before it was computed,
+ * bounded by the answers' total size as JSON text. Concurrent requests for the same key and
+ * stamp share one computation; a failed one is not kept. Callers must not change what they are
+ * given: it is shared. Pass the pool's handle, never a transaction's: inside a transaction the
+ * snapshot leaves out the transaction's own writes.
  */
-export function snapshotCache<V extends object>(max: number) {
-  const answers = new LRUCache<string, { stamp: string; answer: Promise<V> }>({ max });
+export function snapshotCache<V extends object>(maxBytes: number) {
+  const answers = new LRUCache<string, Kept<V>>({ maxSize: maxBytes, sizeCalculation: (kept) => kept.size });
   return async function cached(db: Database, key: string, compute: () => Promise<V>): Promise<V> {
     const stamp = await snapshotStamp(db);
-    const kept = answers.get(key);
-    if (kept?.stamp === stamp) return kept.answer;
-    const answer = compute();
-    answers.set(key, { stamp, answer });
-    answer.catch(() => {
-      if (answers.get(key)?.answer === answer) answers.delete(key);
-    });
-    return answer;
+    const found = answers.get(key);
+    if (found?.stamp === stamp) return found.answer;
+    const kept: Kept<V> = { stamp, answer: compute(), size: 1 };
+    answers.set(key, kept);
+    kept.answer.then(
+      (value) => {
+        // Sized once known, as a new entry (the cache sizes an entry when it is set); one larger than the whole cache is dropped.
+        if (answers.peek(key) === kept) answers.set(key, { ...kept, size: Math.max(1, JSON.stringify(value).length) });
+      },
+      () => {
+        if (answers.peek(key) === kept) answers.delete(key);
+      },
+    );
+    return kept.answer;
   };
 }

@@ -128,7 +128,7 @@ export async function queuePage(db: Database, user: SessionUser, role: QueueRole
   };
 }
 
-const queues = snapshotCache<Awaited<ReturnType<typeof readMyQueue>>>(2_000);
+const queues = snapshotCache<Awaited<ReturnType<typeof readMyQueue>>>(16 * 1024 * 1024);
 
 async function readMyQueue(db: Database, user: SessionUser) {
   const all = Object.keys(user.projectRoles);

@@ -32,7 +32,7 @@ async function currentResultsHash(db: Database, revisionId: string, rowVersion: 
   return hash;
 }
 
-const answers = snapshotCache<Awaited<ReturnType<typeof readSignOffs>>>(2_000);
+const answers = snapshotCache<Awaited<ReturnType<typeof readSignOffs>>>(8 * 1024 * 1024);
 
 /**
  * A revision's sign-offs, oldest first, with the signer's name and whether each still stands.
