@@ -1,5 +1,6 @@
 import { type Column, type Table, aliasedTable, and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-orm';
 import type { Database } from '../db/client';
+import { perHandle } from '../db/per-handle';
 import { auditEvents, projects, revisions, studies, users, type AuditEvent } from '../db/schema';
 import { eventSentence } from '../records/event-sentences';
 import { canonicalJson, sha256Hex } from '../canonical-json';
@@ -143,7 +144,7 @@ function unfilteredQueries(db: Database) {
   });
   return { all: build(undefined, 'all'), scoped: build(scopeConditionOf(sql.placeholder('projects')), 'scoped') };
 }
-const unfiltered = new WeakMap<Database, ReturnType<typeof unfilteredQueries>>();
+const unfiltered = perHandle(unfilteredQueries);
 
 const pages = snapshotCache<Awaited<ReturnType<typeof readAuditPage>>>(32 * 1024 * 1024);
 
@@ -157,8 +158,7 @@ export function listAuditEvents(db: Database, scope: AuditScope, filter: AuditFi
 
 async function readAuditPage(db: Database, scope: AuditScope, filter: AuditFilter, page: number, pageSize: number) {
   if (Object.values(filter).every((v) => v === undefined)) {
-    let q = unfiltered.get(db);
-    if (!q) unfiltered.set(db, (q = unfilteredQueries(db)));
+    const q = unfiltered(db);
     const { count, page: rows } = scope.all ? q.all : q.scoped;
     const params = { projects: scope.all ? [] : scope.projectIds, limit: pageSize, offset: page * pageSize };
     const [[{ total }], events] = await Promise.all([count.execute(params), rows.execute(params)]);

@@ -2,6 +2,7 @@ import { asc, eq, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { auditEvents, revisions, studies, users } from '../db/schema';
 import { snapshotCache } from '../db/snapshot-cache';
+import { perHandle } from '../db/per-handle';
 
 /** A revision's events, oldest first, told with its number and study code; prepared once per database handle. */
 function historyQuery(db: Database) {
@@ -15,7 +16,7 @@ function historyQuery(db: Database) {
     .orderBy(asc(auditEvents.id))
     .prepare('revision_history');
 }
-const prepared = new WeakMap<Database, ReturnType<typeof historyQuery>>();
+const prepared = perHandle(historyQuery);
 
 const histories = snapshotCache<Awaited<ReturnType<ReturnType<typeof historyQuery>['execute']>>>(16 * 1024 * 1024);
 
@@ -25,9 +26,5 @@ const histories = snapshotCache<Awaited<ReturnType<ReturnType<typeof historyQuer
  * than the revision moves.
  */
 export function revisionHistory(db: Database, revisionId: string) {
-  return histories(db, revisionId, () => {
-    let q = prepared.get(db);
-    if (!q) prepared.set(db, (q = historyQuery(db)));
-    return q.execute({ revisionId });
-  });
+  return histories(db, revisionId, () => prepared(db).execute({ revisionId }));
 }

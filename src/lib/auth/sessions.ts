@@ -1,5 +1,6 @@
 import { and, eq, gt, isNull, lt, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
+import { perHandle } from '../db/per-handle';
 import { memberships, userSessions, users } from '../db/schema';
 import type { ProjectRole } from '../db/schema/projects';
 import type { SessionUser } from './roles';
@@ -36,7 +37,7 @@ function sessionQuery(db: Database) {
     .where(and(eq(userSessions.id, sql.placeholder('sid')), eq(userSessions.userId, sql.placeholder('uid')), isNull(userSessions.revokedAt), gt(userSessions.expiresAt, sql`now()`)))
     .prepare('signed_in_user');
 }
-const sessionQueries = new WeakMap<Database, ReturnType<typeof sessionQuery>>();
+const sessionQueries = perHandle(sessionQuery);
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
@@ -48,9 +49,7 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  */
 export async function signedInUser(db: Database, claims: SessionClaims | null): Promise<SessionUser | null> {
   if (!claims || !UUID.test(claims.sid) || !UUID.test(claims.uid)) return null;
-  let query = sessionQueries.get(db);
-  if (!query) sessionQueries.set(db, (query = sessionQuery(db)));
-  const rows = await query.execute({ sid: claims.sid, uid: claims.uid });
+  const rows = await sessionQueries(db).execute({ sid: claims.sid, uid: claims.uid });
   const [row] = rows;
   if (!row) return null;
   const projectRoles: Record<string, ProjectRole[]> = {};

@@ -4,6 +4,7 @@ import { jsonBytes, rowJson, rowsJson } from './json-select';
 import { cachedResultsBytes, rememberResultsBytes } from './results-bytes';
 import { assertId } from './revisions.repo';
 import type { Database } from './client';
+import { perHandle } from './per-handle';
 import { checkValues, checklistItems, projects, remarks, revisions, signOffs, studies, users } from './schema';
 import { AppError } from '../errors';
 
@@ -68,15 +69,14 @@ function partsQuery(db: Database, withResults: boolean) {
 }
 
 // Prepared once per database handle: building these statements cost more than running them.
-const queries = new WeakMap<Database, { stamp: ReturnType<typeof stampQuery>; parts: ReturnType<typeof partsQuery>; withResults: ReturnType<typeof partsQuery> }>();
+const queries = perHandle((db) => ({ stamp: stampQuery(db), parts: partsQuery(db, false), withResults: partsQuery(db, true) }));
 
 const NO_RESULTS = Buffer.from('null');
 const notFound = () => new AppError('NotFound', 'There is no revision with this id.');
 
 export async function revisionDetailBytes(db: Database, revisionId: string): Promise<{ projectId: string; body: Buffer }> {
   assertId(revisionId, 'revision');
-  let q = queries.get(db);
-  if (!q) queries.set(db, (q = { stamp: stampQuery(db), parts: partsQuery(db, false), withResults: partsQuery(db, true) }));
+  const q = queries(db);
   const [head] = await q.stamp.execute({ id: revisionId });
   if (!head) throw notFound();
   const kept = bodies.get(`${revisionId}:${head.stamp}`);

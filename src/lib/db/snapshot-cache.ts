@@ -15,8 +15,10 @@ import type { Database } from './client';
  * (a write anywhere starts every answer afresh) but writers keep nothing for it: it suits screens
  * read far more often than anything is written, such as the home page queues and the audit trail.
  */
+const STAMP = sql`select pg_current_snapshot()::text as stamp`;
+
 export async function snapshotStamp(db: Database): Promise<string> {
-  const { rows } = await db.execute<{ stamp: string }>(sql`select pg_current_snapshot()::text as stamp`);
+  const { rows } = await db.execute<{ stamp: string }>(STAMP);
   return rows[0].stamp;
 }
 

@@ -3,6 +3,7 @@ import type { Database } from '../db/client';
 import { projects, revisions, studies } from '../db/schema';
 import { decodeCursor, encodeCursor } from '../db/keyset-cursor';
 import { snapshotCache } from '../db/snapshot-cache';
+import { perHandle } from '../db/per-handle';
 import type { SessionUser } from '../auth/roles';
 
 /** A revision that waited longer than this in someone's queue is shown as overdue. */
@@ -58,7 +59,9 @@ const rowShape = {
 };
 
 const overdue = (d: Date) => Date.now() - d.getTime() > OVERDUE_DAYS * 86_400_000;
-const mark = <T extends { updatedAt: Date; position: string }>(rows: T[]) => rows.map(({ position: _position, ...r }) => ({ ...r, overdue: overdue(r.updatedAt) }));
+/** Whether each row is overdue, decided now. */
+const withOverdue = <T extends { updatedAt: Date }>(items: T[]) => items.map((i) => ({ ...i, overdue: overdue(i.updatedAt) }));
+const mark = <T extends { updatedAt: Date; position: string }>(rows: T[]) => withOverdue(rows.map(({ position: _position, ...r }) => r));
 const projectsAs = (user: SessionUser, role: string) => Object.entries(user.projectRoles).filter(([, r]) => r.includes(role as never)).map(([id]) => id);
 const rows = (db: Database, where: SQL | undefined) =>
   db.select({ ...rowShape, projectName: projectName(studies.projectId) }).from(revisions).innerJoin(studies, eq(studies.id, revisions.studyId)).where(where);
@@ -81,12 +84,7 @@ function queueQueries(db: Database, role: QueueRole) {
 }
 const recentQuery = (db: Database) => rows(db, inProjects).orderBy(desc(revisions.updatedAt)).limit(8).prepare('queue_recent');
 
-const prepared = new WeakMap<Database, { recent: ReturnType<typeof recentQuery> } & Record<QueueRole, ReturnType<typeof queueQueries>>>();
-function queries(db: Database) {
-  let q = prepared.get(db);
-  if (!q) prepared.set(db, (q = { recent: recentQuery(db), designer: queueQueries(db, 'designer'), checker: queueQueries(db, 'checker'), approver: queueQueries(db, 'approver') }));
-  return q;
-}
+const queries = perHandle((db) => ({ recent: recentQuery(db), designer: queueQueries(db, 'designer'), checker: queueQueries(db, 'checker'), approver: queueQueries(db, 'approver') }));
 
 /** The first page (and the count, up to the limit) in one call, or a later page and the count apart. */
 async function pageAndCount(db: Database, user: SessionUser, role: QueueRole, projectIds: string[], countLimit: number, after?: [string, string]) {
@@ -146,6 +144,5 @@ async function readMyQueue(db: Database, user: SessionUser) {
  */
 export async function myQueue(db: Database, user: SessionUser) {
   const { waiting, recent } = await queues(db, `${user.id} ${JSON.stringify(user.projectRoles)}`, () => readMyQueue(db, user));
-  const now = <T extends { updatedAt: Date }>(items: T[]) => items.map((i) => ({ ...i, overdue: overdue(i.updatedAt) }));
-  return { waiting: waiting.map((w) => ({ ...w, items: now(w.items) })), recent: now(recent) };
+  return { waiting: waiting.map((w) => ({ ...w, items: withOverdue(w.items) })), recent: withOverdue(recent) };
 }

@@ -1,6 +1,7 @@
 import { eq, sql } from 'drizzle-orm';
 import { LRUCache } from 'lru-cache';
 import type { Database } from '../db/client';
+import { perHandle } from '../db/per-handle';
 import { revisions, studies } from '../db/schema';
 import { assertId } from '../db/revisions.repo';
 import { AppError } from '../errors';
@@ -38,13 +39,11 @@ function scopeQuery(db: Database) {
     .where(eq(revisions.id, sql.placeholder('id')))
     .prepare('route_profile_scope');
 }
-const scopeQueries = new WeakMap<Database, ReturnType<typeof scopeQuery>>();
+const scopeQueries = perHandle(scopeQuery);
 
 async function profileScope(db: Database, revisionId: string, caseId: string) {
   assertId(revisionId, 'revision');
-  let q = scopeQueries.get(db);
-  if (!q) scopeQueries.set(db, (q = scopeQuery(db)));
-  const [row] = await q.execute({ id: revisionId, caseId });
+  const [row] = await scopeQueries(db).execute({ id: revisionId, caseId });
   if (!row) throw new AppError('NotFound', 'There is no revision with this id.');
   return { ...row, caseFound: row.storedProfile !== null, storedProfileJson: row.storedProfile || null };
 }
